@@ -1,0 +1,7 @@
+import type { Command } from './command.ts';
+
+/**
+ * Every `barwright` sub-command, in the order `barwright help` lists them.
+ * To add one: write `src/cli/commands/<name>.ts` exporting a `Command`, and add it here.
+ */
+export const commands: Command[] = [];
