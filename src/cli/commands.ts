@@ -1,7 +1,9 @@
 import type { Command } from './command.ts';
+import { modesCommand } from './commands/modes.ts';
+import { materialsCommand } from './commands/materials.ts';
 
 /**
  * Every `barwright` sub-command, in the order `barwright help` lists them.
  * To add one: write `src/cli/commands/<name>.ts` exporting a `Command`, and add it here.
  */
-export const commands: Command[] = [];
+export const commands: Command[] = [modesCommand, materialsCommand];

@@ -1,0 +1,26 @@
+import { materialPresets } from '../../material/materialPresets.ts';
+import { InputError } from '../../project/InputError.ts';
+import { fixed, formatTable, parseOptions, toJson, type Command } from '../command.ts';
+
+/** `barwright materials`: the material presets with the source of every value (contract). */
+export const materialsCommand: Command = {
+  name: 'materials',
+  summary: 'list the material presets and where each value comes from',
+  usage: 'barwright materials [--json]',
+  async run(args, io) {
+    const { values, positionals } = parseOptions(args, { json: { type: 'boolean' } });
+    if (positionals.length > 0) throw new InputError('command line', 'arguments', `materials takes no arguments (got "${positionals.join(' ')}")`);
+    if (values.json) {
+      io.stdout(toJson({ presets: materialPresets }));
+      return 0;
+    }
+    const rows = [['preset', 'E GPa', 'G GPa', 'ν', 'ρ kg/m³', 'description']];
+    for (const p of materialPresets) {
+      const shear = p.G_GPa ?? p.E_GPa / (2 * (1 + p.poisson));
+      rows.push([p.name, fixed(p.E_GPa, 1), `${fixed(shear, 2)}${p.G_GPa === undefined ? ' (from ν)' : ''}`, fixed(p.poisson, 2), fixed(p.density_kg_m3, 0), p.label]);
+    }
+    const sources = materialPresets.map((p) => `${p.name}:\n  E: ${p.sources.E}\n  G: ${p.sources.G}\n  density: ${p.sources.density}\n  ν: ${p.sources.poisson}`);
+    io.stdout(`${formatTable(rows)}\n\nSources\n${sources.join('\n')}\n\nWood varies ±20 % from blank to blank: calibrate from the blank's measured partials.`);
+    return 0;
+  },
+};

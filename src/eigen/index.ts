@@ -1,0 +1,4 @@
+export * from './BandedMatrix.ts';
+export * from './bandedLdlt.ts';
+export * from './tridiagonalEigen.ts';
+export * from './lowestModes.ts';

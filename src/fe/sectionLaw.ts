@@ -1,0 +1,110 @@
+import type { Material } from '../material/Material.ts';
+import type { Section } from '../section/Section.ts';
+import { sectionProperties } from '../section/sectionProperties.ts';
+import { defaultShearCoefficient } from '../section/shearCoefficient.ts';
+import { rectangleTorsionConstant, rectangleTorsionConstantDerivative } from '../section/rectangleTorsionConstant.ts';
+
+/**
+ * Properties per unit length of a beam as functions of the local thickness t (m): the bridge
+ * between a section and the elements, which only ever see these numbers.
+ * Bending laws write [EI, κGA, ρA, ρI] (N·m², N, kg/m, kg·m); torsion laws [GJ, ρI_p] (N·m², kg·m).
+ */
+export interface SectionLaw {
+  /** How many properties `evaluate` writes. */
+  readonly count: number;
+  /** Writes the properties at thickness t into `out`, and their d/dt into `derivative` if given. */
+  evaluate(thickness: number, out: Float64Array, derivative?: Float64Array): void;
+}
+
+/** Bending plane: vertical (the tuned family, thickness direction) or lateral (width direction). */
+export type BendingPlane = 'vertical' | 'lateral';
+
+/**
+ * The bending law of a section and material in one plane. Rect: EI = E·b·t³/12 (vertical) or
+ * E·t·b³/12 (lateral), κGA = κ·G·b·t, ρA = ρ·b·t, ρI likewise; round and tube are uniform.
+ * Classical beam theory about the section's own centroid (contract).
+ */
+export function bendingLaw(section: Section, material: Material, plane: BendingPlane): SectionLaw {
+  const E = material.youngModulus;
+  const G = material.shearModulus;
+  const rho = material.density;
+  const kappa = material.shearCoefficient ?? defaultShearCoefficient(section, material.poisson);
+  if (section.shape === 'rect') {
+    const b = section.width;
+    if (plane === 'vertical') {
+      return {
+        count: 4,
+        evaluate(t, out, derivative) {
+          const t2 = t * t;
+          out[0] = (E * b * t2 * t) / 12;
+          out[1] = kappa * G * b * t;
+          out[2] = rho * b * t;
+          out[3] = (rho * b * t2 * t) / 12;
+          if (derivative) {
+            derivative[0] = (E * b * t2) / 4;
+            derivative[1] = kappa * G * b;
+            derivative[2] = rho * b;
+            derivative[3] = (rho * b * t2) / 4;
+          }
+        },
+      };
+    }
+    const b3 = b * b * b;
+    return {
+      count: 4,
+      evaluate(t, out, derivative) {
+        out[0] = (E * t * b3) / 12;
+        out[1] = kappa * G * b * t;
+        out[2] = rho * b * t;
+        out[3] = (rho * t * b3) / 12;
+        if (derivative) {
+          derivative[0] = (E * b3) / 12;
+          derivative[1] = kappa * G * b;
+          derivative[2] = rho * b;
+          derivative[3] = (rho * b3) / 12;
+        }
+      },
+    };
+  }
+  const p = sectionProperties(section);
+  const values = [E * p.secondMomentVertical, kappa * G * p.area, rho * p.area, rho * p.secondMomentVertical];
+  return {
+    count: 4,
+    evaluate(_t, out, derivative) {
+      for (let k = 0; k < 4; k++) out[k] = values[k]!;
+      derivative?.fill(0);
+    },
+  };
+}
+
+/**
+ * The St-Venant torsion law: GJ (J by the rectangle series, or the polar moment for round
+ * sections) and ρI_p with I_p = b·t·(b² + t²)/12 for a rectangle.
+ */
+export function torsionLaw(section: Section, material: Material): SectionLaw {
+  const G = material.shearModulus;
+  const rho = material.density;
+  if (section.shape === 'rect') {
+    const b = section.width;
+    return {
+      count: 2,
+      evaluate(t, out, derivative) {
+        out[0] = G * rectangleTorsionConstant(b, t);
+        out[1] = (rho * b * t * (b * b + t * t)) / 12;
+        if (derivative) {
+          derivative[0] = G * rectangleTorsionConstantDerivative(b, t);
+          derivative[1] = (rho * b * (b * b + 3 * t * t)) / 12;
+        }
+      },
+    };
+  }
+  const p = sectionProperties(section);
+  return {
+    count: 2,
+    evaluate(_t, out, derivative) {
+      out[0] = G * p.torsionConstant;
+      out[1] = rho * p.polarMoment;
+      derivative?.fill(0);
+    },
+  };
+}

@@ -1,0 +1,2 @@
+export * from './Material.ts';
+export * from './materialPresets.ts';

@@ -1,0 +1,73 @@
+import type { Material } from '../material/Material.ts';
+import { findMaterialPreset } from '../material/materialPresets.ts';
+import type { BarFile, BarFileMaterial, BarFileSection } from '../project/barFile.ts';
+import type { Section } from '../section/Section.ts';
+import { uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
+
+/** A bar in SI units, ready for the solver: length (m), section, thickness profile, material. */
+export interface BarModel {
+  readonly length: number;
+  readonly section: Section;
+  /** Thickness profile (m); uniform for round sections (where the thickness is the diameter). */
+  readonly profile: ThicknessProfile;
+  readonly material: Material;
+}
+
+const mm = 1e-3;
+const GPa = 1e9;
+
+/** The section of a bar file in SI. */
+export function sectionFromFile(section: BarFileSection): Section {
+  switch (section.shape) {
+    case 'rect':
+      return { shape: 'rect', width: section.width_mm * mm, thickness: section.thickness_mm * mm };
+    case 'round':
+      return { shape: 'round', diameter: section.diameter_mm * mm };
+    case 'tube':
+      return { shape: 'tube', outerDiameter: section.outer_diameter_mm * mm, wall: section.wall_mm * mm };
+  }
+}
+
+/**
+ * The material of a bar file in SI: a preset by name, or explicit E, ρ and G (or ν, giving the
+ * isotropic G = E/(2(1+ν))); ν defaults to 0.3 (contract).
+ */
+export function materialFromFile(material: BarFileMaterial): Material {
+  let E: number;
+  let density: number;
+  let G: number | undefined;
+  let poisson: number;
+  if ('preset' in material) {
+    const preset = findMaterialPreset(material.preset);
+    if (!preset) throw new Error(`internal: unknown preset ${material.preset} (parseBarFile should have caught it)`);
+    E = preset.E_GPa * GPa;
+    density = preset.density_kg_m3;
+    poisson = preset.poisson;
+    G = preset.G_GPa === undefined ? undefined : preset.G_GPa * GPa;
+  } else {
+    E = material.E_GPa * GPa;
+    density = material.density_kg_m3;
+    poisson = material.poisson ?? 0.3;
+    G = material.G_GPa === undefined ? undefined : material.G_GPa * GPa;
+  }
+  const shearModulus = G ?? E / (2 * (1 + poisson));
+  return material.shear_coefficient === undefined
+    ? { youngModulus: E, shearModulus, density, poisson }
+    : { youngModulus: E, shearModulus, density, poisson, shearCoefficient: material.shear_coefficient };
+}
+
+/** Converts a validated bar file (mm, GPa) to a BarModel (SI). */
+export function barModelFromFile(bar: BarFile): BarModel {
+  const length = bar.length_mm * mm;
+  const section = sectionFromFile(bar.section);
+  let profile: ThicknessProfile;
+  if (section.shape === 'rect' && bar.profile_mm && bar.profile_mm.length >= 2) {
+    profile = {
+      positions: Float64Array.from(bar.profile_mm, ([x]) => x * mm),
+      thicknesses: Float64Array.from(bar.profile_mm, ([, t]) => t * mm),
+    };
+  } else {
+    profile = uniformProfile(length, section.shape === 'rect' ? section.thickness : section.shape === 'round' ? section.diameter : section.outerDiameter);
+  }
+  return { length, section, profile, material: materialFromFile(bar.material) };
+}

@@ -1,0 +1,123 @@
+import type { BeamTheory } from '../fe/beamElementType.ts';
+import { buildMesh } from '../fe/buildMesh.ts';
+import type { BarFile } from '../project/barFile.ts';
+import { isAxisymmetric } from '../section/Section.ts';
+import { barModelFromFile, type BarModel } from './BarModel.ts';
+import { collisionWarnings, collisionWindowCents, type OtherMode } from './collisionWarnings.ts';
+import { meshDensity } from './meshDensity.ts';
+import { bendingFieldsAt, sampleShape, torsionFieldsAt, zeroCrossings } from './modeShape.ts';
+import { bendingLine, solveBendingLine, type BendingSolution } from './solveBending.ts';
+import { solveTorsionLine, torsionLine, type TorsionSolution } from './solveTorsion.ts';
+
+/** Options of analyzeBar. */
+export interface AnalyzeOptions {
+  /** How many vertical bending modes (default 4). */
+  modes?: number;
+  theory?: BeamTheory;
+  /** Target element count (default automatic). */
+  elements?: number;
+  /** Include sampled mode shapes (61 points, scaled to ±1) for plotting (default false). */
+  shapes?: boolean;
+}
+
+/** A mode shape sampled along the bar, positions in mm, values scaled so max |value| = 1. */
+export interface SampledShape {
+  x_mm: number[];
+  displacement: number[];
+}
+
+/** One mode in analyzeBar's result. */
+export interface ModeResult {
+  mode: number;
+  hz: number;
+  /** hz / the fundamental's (bending mode 1) hz. */
+  ratio: number;
+  /** Node positions (zero crossings of the deflection) from the left end, mm: bending only. */
+  nodes_mm?: number[];
+  shape?: SampledShape;
+}
+
+/** analyzeBar's result: exactly what `barwright modes --json` prints (contract). */
+export interface BarAnalysis {
+  theory: BeamTheory;
+  bending: ModeResult[];
+  torsion: ModeResult[];
+  lateral: ModeResult[];
+  warnings: string[];
+  mesh: { elements: number };
+}
+
+const shapePoints = 61;
+/** 50 cents above the highest of the first three partials: how far up other families are needed. */
+const collisionReach = 2 ** (collisionWindowCents / 1200);
+
+function modeResults(
+  frequencies: Float64Array,
+  fundamental: number,
+  nodes: Float64Array,
+  length: number,
+  valueAt: (mode: number, x: number) => number,
+  shapes: boolean,
+  withNodes: boolean,
+): ModeResult[] {
+  return Array.from(frequencies, (hz, i) => {
+    const result: ModeResult = { mode: i + 1, hz, ratio: hz / fundamental };
+    if (withNodes) result.nodes_mm = zeroCrossings(nodes, (x) => valueAt(i, x)).map((x) => x * 1000);
+    if (shapes) {
+      const shape = sampleShape(length, shapePoints, (x) => valueAt(i, x));
+      result.shape = { x_mm: Array.from(shape.x, (x) => x * 1000), displacement: Array.from(shape.value) };
+    }
+    return result;
+  });
+}
+
+/**
+ * Solves a family, asking for more modes until the highest found lies above `reachHz` (so every
+ * mode that could collide with a tuned partial is seen) or the mesh has no more.
+ */
+function solveUpTo<T extends { frequencies: Float64Array }>(solve: (count: number) => T, count: number, reachHz: number): T {
+  let solution = solve(count);
+  while (solution.frequencies.length === count && solution.frequencies[count - 1]! < reachHz && count < 64) {
+    count *= 2;
+    solution = solve(count);
+  }
+  return solution;
+}
+
+/**
+ * Vibration modes of a free–free bar: the N lowest vertical bending modes (the tuned partials)
+ * with ratios, node positions and optional shapes; lateral bending and torsion modes up to 50
+ * cents above the third partial (at least N of each); warnings for any within 50 cents of
+ * bending partials 1–3. Timoshenko (default) or Euler–Bernoulli finite elements on a mesh with a
+ * node at every profile station; banded shift-invert Lanczos. Pure and synchronous.
+ */
+export function analyzeBar(bar: BarFile, options: AnalyzeOptions = {}): BarAnalysis {
+  return analyzeBarModel(barModelFromFile(bar), options);
+}
+
+/** analyzeBar on a model already in SI units (see BarModel). */
+export function analyzeBarModel(model: BarModel, options: AnalyzeOptions = {}): BarAnalysis {
+  const modes = Math.max(1, Math.floor(options.modes ?? 4));
+  const theory = options.theory ?? 'timoshenko';
+  const shapes = options.shapes ?? false;
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(Math.max(modes, 4)));
+  const vertical: BendingSolution = solveBendingLine(bendingLine(model, 'vertical'), nodes, theory, Math.max(modes, 3));
+  const fundamental = vertical.frequencies[0]!;
+  const reach = vertical.frequencies[Math.min(2, vertical.frequencies.length - 1)]! * collisionReach;
+  const bendingValue = (solution: BendingSolution) => (mode: number, x: number) => bendingFieldsAt(solution, mode, x).deflection;
+  const bending = modeResults(vertical.frequencies.subarray(0, modes), fundamental, nodes, model.length, bendingValue(vertical), shapes, true);
+
+  const lateralLine = bendingLine(model, 'lateral');
+  const lateralSolution = isAxisymmetric(model.section) ? vertical : solveUpTo((count) => solveBendingLine(lateralLine, nodes, theory, count), modes, reach);
+  const lateral = modeResults(lateralSolution.frequencies.subarray(0, isAxisymmetric(model.section) ? modes : undefined), fundamental, nodes, model.length, bendingValue(lateralSolution), shapes, false);
+
+  const twistLine = torsionLine(model);
+  const torsionSolution: TorsionSolution = solveUpTo((count) => solveTorsionLine(twistLine, nodes, count), modes, reach);
+  const torsion = modeResults(torsionSolution.frequencies, fundamental, nodes, model.length, (mode, x) => torsionFieldsAt(torsionSolution, mode, x).twist, shapes, false);
+
+  const others: OtherMode[] = torsion.map((m) => ({ family: 'torsion' as const, mode: m.mode, hz: m.hz }));
+  // A rod or tube's lateral modes are its vertical ones: the same partials, not a collision.
+  if (!isAxisymmetric(model.section)) others.push(...lateral.map((m) => ({ family: 'lateral' as const, mode: m.mode, hz: m.hz })));
+  const warnings = collisionWarnings(Array.from(vertical.frequencies.subarray(0, 3)), others);
+  return { theory, bending, torsion, lateral, warnings, mesh: { elements: nodes.length - 1 } };
+}

@@ -1,0 +1,74 @@
+import { assembleBending, bendingRigidModes, type BendingSystem } from '../fe/assembleBending.ts';
+import type { BeamTheory } from '../fe/beamElementType.ts';
+import type { BeamLine } from '../fe/BeamLine.ts';
+import { buildMesh } from '../fe/buildMesh.ts';
+import { bendingLaw, type BendingPlane } from '../fe/sectionLaw.ts';
+import { lowestModes } from '../eigen/lowestModes.ts';
+import type { BarModel } from './BarModel.ts';
+import { meshDensity } from './meshDensity.ts';
+
+/** Options for solveBending. */
+export interface BendingOptions {
+  theory?: BeamTheory;
+  /** How many flexible modes (default 4). */
+  modes?: number;
+  /** Target element count (default: automatic, see meshDensity). */
+  elements?: number;
+  /** Bending plane (default vertical, the tuned family). */
+  plane?: BendingPlane;
+}
+
+/** Flexible bending modes of a free–free bar on its finite-element mesh. */
+export interface BendingSolution {
+  readonly line: BeamLine;
+  readonly system: BendingSystem;
+  /** Eigenvalues λ = ω² (rad²/s²), ascending. */
+  readonly eigenvalues: Float64Array;
+  /** Frequencies (Hz), ascending. */
+  readonly frequencies: Float64Array;
+  /** M-normalised mode vectors (dof layout of the system), sign fixed so w(0) > 0. */
+  readonly vectors: Float64Array[];
+}
+
+/** The beam line (length, profile, law) of a bar in one bending plane. */
+export function bendingLine(model: BarModel, plane: BendingPlane = 'vertical'): BeamLine {
+  return { length: model.length, profile: model.profile, law: bendingLaw(model.section, model.material, plane) };
+}
+
+/**
+ * Euler–Bernoulli estimate of the lowest free–free eigenvalue ω₁² from length-averaged
+ * properties, (4.730/L)⁴·EI/ρA (Blevins 1979, table 8-1): used only to place the shift.
+ */
+function firstEigenvalueEstimate(line: BeamLine): number {
+  const properties = new Float64Array(4);
+  const t = line.profile.thicknesses;
+  let bending = 0;
+  let mass = 0;
+  for (let k = 0; k < t.length; k++) {
+    line.law.evaluate(t[k]!, properties);
+    bending += properties[0]!;
+    mass += properties[2]!;
+  }
+  return (4.730041 / line.length) ** 4 * (bending / mass);
+}
+
+/** Free–free bending modes of a beam line on a given mesh (pipeline: assemble → solve). */
+export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: BeamTheory, modes: number): BendingSolution {
+  const system = assembleBending(nodes, line, theory);
+  const shift = -0.5 * firstEigenvalueEstimate(line);
+  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system) });
+  for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
+  const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
+  return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };
+}
+
+/**
+ * The lowest flexible bending modes of a free–free bar (Timoshenko by default), in the vertical
+ * or lateral plane. Mesh: a node at every profile station, automatic density unless `elements`.
+ */
+export function solveBending(model: BarModel, options: BendingOptions = {}): BendingSolution {
+  const modes = options.modes ?? 4;
+  const line = bendingLine(model, options.plane ?? 'vertical');
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes));
+  return solveBendingLine(line, nodes, options.theory ?? 'timoshenko', modes);
+}

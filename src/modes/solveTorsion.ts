@@ -1,0 +1,47 @@
+import { assembleTorsion, torsionRigidMode, type TorsionSystem } from '../fe/assembleTorsion.ts';
+import type { BeamLine } from '../fe/BeamLine.ts';
+import { buildMesh } from '../fe/buildMesh.ts';
+import { torsionLaw } from '../fe/sectionLaw.ts';
+import { lowestModes } from '../eigen/lowestModes.ts';
+import type { BarModel } from './BarModel.ts';
+import { meshDensity } from './meshDensity.ts';
+
+/** Flexible St-Venant torsion modes of a free–free bar. */
+export interface TorsionSolution {
+  readonly line: BeamLine;
+  readonly system: TorsionSystem;
+  readonly eigenvalues: Float64Array;
+  readonly frequencies: Float64Array;
+  /** M-normalised twist vectors (dof 2e node e, 2e+1 midpoint of element e), ψ(0) > 0. */
+  readonly vectors: Float64Array[];
+}
+
+/** The torsion beam line of a bar. */
+export function torsionLine(model: BarModel): BeamLine {
+  return { length: model.length, profile: model.profile, law: torsionLaw(model.section, model.material) };
+}
+
+/** Free–free torsion modes of a beam line on a given mesh. */
+export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: number): TorsionSolution {
+  const system = assembleTorsion(nodes, line);
+  // Uniform estimate of the first torsion eigenvalue, (π/L)²·GJ/ρI_p, from averaged properties.
+  const properties = new Float64Array(2);
+  let stiffness = 0;
+  let inertia = 0;
+  for (const t of line.profile.thicknesses) {
+    line.law.evaluate(t, properties);
+    stiffness += properties[0]!;
+    inertia += properties[1]!;
+  }
+  const shift = -0.5 * (Math.PI / line.length) ** 2 * (stiffness / inertia);
+  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)] });
+  for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
+  const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
+  return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };
+}
+
+/** The lowest flexible torsion modes of a free–free bar (1D St-Venant theory). */
+export function solveTorsion(model: BarModel, options: { modes?: number; elements?: number } = {}): TorsionSolution {
+  const modes = options.modes ?? 4;
+  return solveTorsionLine(torsionLine(model), buildMesh(model.profile, options.elements ?? meshDensity(modes)), modes);
+}

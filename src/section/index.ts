@@ -1,0 +1,5 @@
+export * from './Section.ts';
+export * from './ThicknessProfile.ts';
+export * from './rectangleTorsionConstant.ts';
+export * from './shearCoefficient.ts';
+export * from './sectionProperties.ts';
