@@ -32,10 +32,16 @@ export function torsionElement(h: number, thickness0: number, thickness1: number
     const k = (weight * properties[0]!) / (h * h);
     const m = weight * properties[1]!;
     for (let a = 0; a < 3; a++) {
-      for (let b = 0; b < 3; b++) {
+      for (let b = 0; b <= a; b++) {
         stiffness[a * 3 + b]! += k * dn[a]! * dn[b]!;
         mass[a * 3 + b]! += m * n[a]! * n[b]!;
       }
+    }
+  }
+  for (let a = 0; a < 3; a++) {
+    for (let b = 0; b < a; b++) {
+      stiffness[b * 3 + a] = stiffness[a * 3 + b]!;
+      mass[b * 3 + a] = mass[a * 3 + b]!;
     }
   }
 }

@@ -1,9 +1,12 @@
+import type { BeamTheory } from '../fe/beamElementType.ts';
+
 /**
- * Automatic mesh density: the target number of elements along the bar for the highest mode
- * wanted. Chosen from the measured convergence of the elements (see test/solver and DEVELOPERS.md):
- * with this density modes 1–4 of uniform and deeply undercut bars are within 0.01 cent of the
- * converged values; each extra mode adds elements in proportion to its wavenumber.
+ * Automatic mesh density: the target number of elements along the bar so that bending modes up
+ * to `highestMode` are converged, measured on uniform and deeply undercut wooden bars (see
+ * test/solver): Timoshenko elements (θ cubic, w quartic, error O(h⁶)) need 4·(n+2) elements for
+ * under 0.001 cent on mode 4; Euler–Bernoulli Hermite cubics (error O(h⁴)) need 8·(n+2) for
+ * under 0.01 cent. Profile stations add nodes on top of this (buildMesh).
  */
-export function meshDensity(highestMode: number): number {
-  return Math.max(24, Math.ceil(6 * (highestMode + 1.5)));
+export function meshDensity(highestMode: number, theory: BeamTheory = 'timoshenko'): number {
+  return theory === 'timoshenko' ? Math.max(16, Math.ceil(4 * (highestMode + 2))) : Math.max(24, Math.ceil(8 * (highestMode + 2)));
 }

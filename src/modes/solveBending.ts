@@ -69,6 +69,6 @@ export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: Be
 export function solveBending(model: BarModel, options: BendingOptions = {}): BendingSolution {
   const modes = options.modes ?? 4;
   const line = bendingLine(model, options.plane ?? 'vertical');
-  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes));
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, options.theory ?? 'timoshenko'));
   return solveBendingLine(line, nodes, options.theory ?? 'timoshenko', modes);
 }
