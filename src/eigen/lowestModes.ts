@@ -41,10 +41,22 @@ function startVector(n: number, seed: number): Float64Array {
   return v;
 }
 
+/** aᵀb with four partial sums (breaks the floating-point add latency chain). */
 function dot(a: Float64Array, b: Float64Array): number {
-  let sum = 0;
-  for (let i = 0; i < a.length; i++) sum += a[i]! * b[i]!;
-  return sum;
+  const n = a.length;
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
+  let i = 0;
+  for (; i + 3 < n; i += 4) {
+    s0 += a[i]! * b[i]!;
+    s1 += a[i + 1]! * b[i + 1]!;
+    s2 += a[i + 2]! * b[i + 2]!;
+    s3 += a[i + 3]! * b[i + 3]!;
+  }
+  for (; i < n; i++) s0 += a[i]! * b[i]!;
+  return s0 + s1 + (s2 + s3);
 }
 
 /** w ← w − Σ q (M q)ᵀ w over the given M-orthonormal basis (one classical Gram–Schmidt pass). */
@@ -120,7 +132,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
   if (!newDirection(1)) throw new Error('internal: Lanczos could not find a start vector');
   let ritz: { values: Float64Array; vectors: Float64Array } | null = null;
   let order: number[] = [];
-  const firstCheck = Math.min(maxSteps, wanted + 4);
+  const firstCheck = Math.min(maxSteps, wanted + 2);
   for (let j = 0; j < maxSteps; j++) {
     const q = basis[j]!;
     const w = bandedLdltSolve(factor, Float64Array.from(massBasis[j]!));
@@ -145,7 +157,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
     const b = Math.sqrt(Math.max(dot(w, mw), 0));
     const steps = j + 1;
     const exhausted = steps >= maxSteps;
-    if ((steps >= firstCheck && (steps - firstCheck) % 2 === 0) || exhausted) {
+    if (steps >= firstCheck || exhausted) {
       ritz = tridiagonalEigen(alpha, beta, true);
       order = Array.from(ritz.values.keys()).sort((x, y) => ritz!.values[y]! - ritz!.values[x]!);
       let converged = true;

@@ -5,7 +5,7 @@ import { isAxisymmetric } from '../section/Section.ts';
 import { barModelFromFile, type BarModel } from './BarModel.ts';
 import { collisionWarnings, collisionWindowCents, type OtherMode } from './collisionWarnings.ts';
 import { meshDensity } from './meshDensity.ts';
-import { bendingFieldsAt, sampleShape, torsionFieldsAt, zeroCrossings } from './modeShape.ts';
+import { bendingFieldsAt, bendingNodePositions, sampleShape, torsionFieldsAt } from './modeShape.ts';
 import { bendingLine, solveBendingLine, type BendingSolution } from './solveBending.ts';
 import { solveTorsionLine, torsionLine, type TorsionSolution } from './solveTorsion.ts';
 
@@ -54,15 +54,14 @@ const collisionReach = 2 ** (collisionWindowCents / 1200);
 function modeResults(
   frequencies: Float64Array,
   fundamental: number,
-  nodes: Float64Array,
   length: number,
   valueAt: (mode: number, x: number) => number,
   shapes: boolean,
-  withNodes: boolean,
+  nodesOf?: (mode: number) => number[],
 ): ModeResult[] {
   return Array.from(frequencies, (hz, i) => {
     const result: ModeResult = { mode: i + 1, hz, ratio: hz / fundamental };
-    if (withNodes) result.nodes_mm = zeroCrossings(nodes, (x) => valueAt(i, x)).map((x) => x * 1000);
+    if (nodesOf) result.nodes_mm = nodesOf(i).map((x) => x * 1000);
     if (shapes) {
       const shape = sampleShape(length, shapePoints, (x) => valueAt(i, x));
       result.shape = { x_mm: Array.from(shape.x, (x) => x * 1000), displacement: Array.from(shape.value) };
@@ -105,15 +104,15 @@ export function analyzeBarModel(model: BarModel, options: AnalyzeOptions = {}): 
   const fundamental = vertical.frequencies[0]!;
   const reach = vertical.frequencies[Math.min(2, vertical.frequencies.length - 1)]! * collisionReach;
   const bendingValue = (solution: BendingSolution) => (mode: number, x: number) => bendingFieldsAt(solution, mode, x).deflection;
-  const bending = modeResults(vertical.frequencies.subarray(0, modes), fundamental, nodes, model.length, bendingValue(vertical), shapes, true);
+  const bending = modeResults(vertical.frequencies.subarray(0, modes), fundamental, model.length, bendingValue(vertical), shapes, (mode) => bendingNodePositions(vertical, mode));
 
   const lateralLine = bendingLine(model, 'lateral');
   const lateralSolution = isAxisymmetric(model.section) ? vertical : solveUpTo((count) => solveBendingLine(lateralLine, nodes, theory, count), modes, reach);
-  const lateral = modeResults(lateralSolution.frequencies.subarray(0, isAxisymmetric(model.section) ? modes : undefined), fundamental, nodes, model.length, bendingValue(lateralSolution), shapes, false);
+  const lateral = modeResults(lateralSolution.frequencies.subarray(0, isAxisymmetric(model.section) ? modes : undefined), fundamental, model.length, bendingValue(lateralSolution), shapes);
 
   const twistLine = torsionLine(model);
   const torsionSolution: TorsionSolution = solveUpTo((count) => solveTorsionLine(twistLine, nodes, count), modes, reach);
-  const torsion = modeResults(torsionSolution.frequencies, fundamental, nodes, model.length, (mode, x) => torsionFieldsAt(torsionSolution, mode, x).twist, shapes, false);
+  const torsion = modeResults(torsionSolution.frequencies, fundamental, model.length, (mode, x) => torsionFieldsAt(torsionSolution, mode, x).twist, shapes);
 
   const others: OtherMode[] = torsion.map((m) => ({ family: 'torsion' as const, mode: m.mode, hz: m.hz }));
   // A rod or tube's lateral modes are its vertical ones: the same partials, not a collision.

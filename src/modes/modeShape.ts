@@ -1,4 +1,4 @@
-import { elementOffset } from '../fe/assembleBending.ts';
+import { bendingDofLayout, elementOffset } from '../fe/assembleBending.ts';
 import { quadraticShapeFunctions } from '../fe/torsionElement.ts';
 import type { BendingSolution } from './solveBending.ts';
 import type { TorsionSolution } from './solveTorsion.ts';
@@ -123,4 +123,31 @@ function refineRoot(f: (x: number) => number, a: number, fa: number, b: number, 
     fb = fc;
   }
   return b;
+}
+
+/**
+ * Node positions (m) of bending mode `mode` (0-based): sign changes of the deflection dofs
+ * (every element's w values at its interpolation points, in order along the bar), each refined
+ * on the element's own interpolant by zeroCrossings' root finder.
+ */
+export function bendingNodePositions(solution: BendingSolution, mode: number): number[] {
+  const { kind, position } = bendingDofLayout(solution.system);
+  const u = solution.vectors[mode]!;
+  const length = solution.line.length;
+  const valueAt = (x: number) => bendingFieldsAt(solution, mode, x).deflection;
+  const crossings: number[] = [];
+  let previousX = Number.NaN;
+  let previousValue = 0;
+  for (let i = 0; i < kind.length; i++) {
+    if (kind[i] !== 0) continue;
+    const x = position[i]!;
+    const value = u[i]!;
+    if (!Number.isNaN(previousX)) {
+      if (value === 0) crossings.push(x);
+      else if (previousValue * value < 0) crossings.push(refineRoot(valueAt, previousX, previousValue, x, value, 1e-9 * length));
+    }
+    previousX = x;
+    previousValue = value;
+  }
+  return crossings;
 }

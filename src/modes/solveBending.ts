@@ -55,7 +55,7 @@ function firstEigenvalueEstimate(line: BeamLine): number {
 /** Free–free bending modes of a beam line on a given mesh (pipeline: assemble → solve). */
 export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: BeamTheory, modes: number): BendingSolution {
   const system = assembleBending(nodes, line, theory);
-  const shift = -0.5 * firstEigenvalueEstimate(line);
+  const shift = -0.1 * firstEigenvalueEstimate(line);
   const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system) });
   for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
   const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));

@@ -33,7 +33,7 @@ export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: num
     stiffness += properties[0]!;
     inertia += properties[1]!;
   }
-  const shift = -0.5 * (Math.PI / line.length) ** 2 * (stiffness / inertia);
+  const shift = -0.1 * (Math.PI / line.length) ** 2 * (stiffness / inertia);
   const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)] });
   for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
   const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
