@@ -16,6 +16,11 @@ export interface LowestModesOptions {
    */
   rigidModes?: readonly Float64Array[];
   /**
+   * Also return every eigenpair with λ ≤ upTo, plus the first one above it (so the caller knows
+   * the range is covered): the count grows as needed, in one Lanczos run.
+   */
+  upTo?: number;
+  /**
    * Relative residual at which a Ritz pair counts as converged (default 1e-9: eigenvalue error
    * ≈ residual²/gap, far below 1e-12 relative; vectors to about 1e-9).
    */
@@ -97,7 +102,8 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
     massRigid.push(mv);
   }
   const available = n - rigid.length;
-  const wanted = Math.min(count, available);
+  const minimum = Math.min(count, available);
+  let wanted = minimum;
   if (wanted <= 0) return { eigenvalues: new Float64Array(0), vectors: [], steps: 0 };
 
   const factor = bandedLdlt(sigma === 0 ? stiffness : bandedCombine(stiffness, -sigma, mass));
@@ -160,8 +166,17 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
     if (steps >= firstCheck || exhausted) {
       ritz = tridiagonalEigen(alpha, beta, true);
       order = Array.from(ritz.values.keys()).sort((x, y) => ritz!.values[y]! - ritz!.values[x]!);
-      let converged = true;
-      for (let k = 0; k < wanted; k++) {
+      if (options.upTo !== undefined) {
+        // Ritz values ν = 1/(λ − σ), largest first: count those with λ ≤ upTo, plus one.
+        const bound = 1 / (options.upTo - sigma);
+        let below = 0;
+        while (below < order.length && ritz.values[order[below]!]! >= bound) below++;
+        wanted = Math.max(minimum, Math.min(below + 1, available));
+      }
+      if (exhausted) wanted = Math.min(wanted, steps);
+      // Ritz pairs are trusted only once the Krylov space is larger than the set wanted.
+      let converged = wanted < steps || exhausted;
+      for (let k = 0; converged && k < wanted; k++) {
         const index = order[k]!;
         const lastComponent = ritz.vectors[index]!;
         if (Math.abs(b * lastComponent) > tolerance * Math.abs(ritz.values[index]!)) {

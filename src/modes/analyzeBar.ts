@@ -70,24 +70,18 @@ function modeResults(
   });
 }
 
-/**
- * Solves a family, asking for more modes until the highest found lies above `reachHz` (so every
- * mode that could collide with a tuned partial is seen) or the mesh has no more.
- */
-function solveUpTo<T extends { frequencies: Float64Array }>(solve: (count: number) => T, count: number, reachHz: number): T {
-  let solution = solve(count);
-  while (solution.frequencies.length === count && solution.frequencies[count - 1]! < reachHz && count < 64) {
-    count *= 2;
-    solution = solve(count);
-  }
-  return solution;
+/** The frequencies up to `reach` (Hz), and always at least the first. */
+function withinReach(frequencies: Float64Array, reach: number): Float64Array {
+  let count = 1;
+  while (count < frequencies.length && frequencies[count]! <= reach) count++;
+  return frequencies.subarray(0, count);
 }
 
 /**
  * Vibration modes of a free–free bar: the N lowest vertical bending modes (the tuned partials)
- * with ratios, node positions and optional shapes; lateral bending and torsion modes up to 50
- * cents above the third partial (at least N of each); warnings for any within 50 cents of
- * bending partials 1–3. Timoshenko (default) or Euler–Bernoulli finite elements on a mesh with a
+ * with ratios, node positions and optional shapes; the lateral bending and torsion modes in the
+ * same range (up to 50 cents above the highest of partial N and partial 3; at least the first of
+ * each); warnings for any within 50 cents of bending partials 1–3. Timoshenko (default) or Euler–Bernoulli finite elements on a mesh with a
  * node at every profile station; banded shift-invert Lanczos. Pure and synchronous.
  */
 export function analyzeBar(bar: BarFile, options: AnalyzeOptions = {}): BarAnalysis {
@@ -102,17 +96,19 @@ export function analyzeBarModel(model: BarModel, options: AnalyzeOptions = {}): 
   const nodes = buildMesh(model.profile, options.elements ?? meshDensity(Math.max(modes, 4), theory));
   const vertical: BendingSolution = solveBendingLine(bendingLine(model, 'vertical'), nodes, theory, Math.max(modes, 3));
   const fundamental = vertical.frequencies[0]!;
-  const reach = vertical.frequencies[Math.min(2, vertical.frequencies.length - 1)]! * collisionReach;
+  // Other families are wanted over the bending partials' range, and 50 cents beyond partial 3.
+  const highest = Math.max(vertical.frequencies[modes - 1] ?? 0, vertical.frequencies[Math.min(2, vertical.frequencies.length - 1)]!);
+  const reach = highest * collisionReach;
   const bendingValue = (solution: BendingSolution) => (mode: number, x: number) => bendingFieldsAt(solution, mode, x).deflection;
   const bending = modeResults(vertical.frequencies.subarray(0, modes), fundamental, model.length, bendingValue(vertical), shapes, (mode) => bendingNodePositions(vertical, mode));
 
   const lateralLine = bendingLine(model, 'lateral');
-  const lateralSolution = isAxisymmetric(model.section) ? vertical : solveUpTo((count) => solveBendingLine(lateralLine, nodes, theory, count), modes, reach);
-  const lateral = modeResults(lateralSolution.frequencies.subarray(0, isAxisymmetric(model.section) ? modes : undefined), fundamental, model.length, bendingValue(lateralSolution), shapes);
+  const lateralSolution = isAxisymmetric(model.section) ? vertical : solveBendingLine(lateralLine, nodes, theory, 1, reach);
+  const lateral = modeResults(withinReach(lateralSolution.frequencies, isAxisymmetric(model.section) ? highest : reach), fundamental, model.length, bendingValue(lateralSolution), shapes);
 
   const twistLine = torsionLine(model);
-  const torsionSolution: TorsionSolution = solveUpTo((count) => solveTorsionLine(twistLine, nodes, count), modes, reach);
-  const torsion = modeResults(torsionSolution.frequencies, fundamental, model.length, (mode, x) => torsionFieldsAt(torsionSolution, mode, x).twist, shapes);
+  const torsionSolution: TorsionSolution = solveTorsionLine(twistLine, nodes, 1, reach);
+  const torsion = modeResults(withinReach(torsionSolution.frequencies, reach), fundamental, model.length, (mode, x) => torsionFieldsAt(torsionSolution, mode, x).twist, shapes);
 
   const others: OtherMode[] = torsion.map((m) => ({ family: 'torsion' as const, mode: m.mode, hz: m.hz }));
   // A rod or tube's lateral modes are its vertical ones: the same partials, not a collision.

@@ -21,8 +21,8 @@ export function torsionLine(model: BarModel): BeamLine {
   return { length: model.length, profile: model.profile, law: torsionLaw(model.section, model.material) };
 }
 
-/** Free–free torsion modes of a beam line on a given mesh. */
-export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: number): TorsionSolution {
+/** Free–free torsion modes of a beam line on a given mesh (with `upToHz`, all up to it plus one). */
+export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: number, upToHz?: number): TorsionSolution {
   const system = assembleTorsion(nodes, line);
   // Uniform estimate of the first torsion eigenvalue, (π/L)²·GJ/ρI_p, from averaged properties.
   const properties = new Float64Array(2);
@@ -34,7 +34,8 @@ export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: num
     inertia += properties[1]!;
   }
   const shift = -0.1 * (Math.PI / line.length) ** 2 * (stiffness / inertia);
-  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)] });
+  const upTo = upToHz === undefined ? undefined : (2 * Math.PI * upToHz) ** 2;
+  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)], ...(upTo === undefined ? {} : { upTo }) });
   for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
   const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
   return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };

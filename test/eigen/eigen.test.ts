@@ -105,6 +105,15 @@ describe('shift-invert Lanczos', () => {
       }
     }
   });
+  it('with upTo returns every mode below the bound plus the next one, in one run', () => {
+    const n = 60;
+    const { stiffness, mass } = chain(n);
+    const exact = (k: number) => 2 - 2 * Math.cos((k * Math.PI) / n);
+    const bound = (exact(7) + exact(8)) / 2;
+    const result = lowestModes(stiffness, mass, 1, { shift: -0.001, rigidModes: [new Float64Array(n).fill(1)], upTo: bound });
+    expect(result.eigenvalues).toHaveLength(8);
+    result.eigenvalues.forEach((value, i) => expect(Math.abs(value - exact(i + 1))).toBeLessThan(1e-12));
+  });
   it('agrees with numeric.eig on a small generalized problem (relative 1e-10)', () => {
     const size = 10;
     const k = randomBanded(size, 2, 11);
