@@ -163,7 +163,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
     const b = Math.sqrt(Math.max(dot(w, mw), 0));
     const steps = j + 1;
     const exhausted = steps >= maxSteps;
-    if (steps >= firstCheck || exhausted) {
+    if ((steps >= firstCheck && (steps - firstCheck) % 2 === 0) || exhausted) {
       ritz = tridiagonalEigen(alpha, beta, true);
       order = Array.from(ritz.values.keys()).sort((x, y) => ritz!.values[y]! - ritz!.values[x]!);
       if (options.upTo !== undefined) {
