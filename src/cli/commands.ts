@@ -1,9 +1,11 @@
 import type { Command } from './command.ts';
 import { modesCommand } from './commands/modes.ts';
 import { materialsCommand } from './commands/materials.ts';
+import { tapCommand } from './commands/tap.ts';
+import { tubesCommand } from './commands/tubes.ts';
 
 /**
  * Every `barwright` sub-command, in the order `barwright help` lists them.
  * To add one: write `src/cli/commands/<name>.ts` exporting a `Command`, and add it here.
  */
-export const commands: Command[] = [modesCommand, materialsCommand];
+export const commands: Command[] = [modesCommand, materialsCommand, tapCommand, tubesCommand];
