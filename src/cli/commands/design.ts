@@ -1,0 +1,119 @@
+import { designBar, type DesignRequest } from '../../design/designBar.ts';
+import { parseToleranceList } from '../../design/designTarget.ts';
+import { profileTemplateSvg } from '../../design/profileTemplateSvg.ts';
+import { stationTable, stationTableCsv } from '../../design/stationTable.ts';
+import { whereToCutMap } from '../../design/whereToCutMap.ts';
+import type { CutLimitsInput } from '../../design/cutLimits.ts';
+import { InputError } from '../../project/InputError.ts';
+import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
+import { readBarFile } from '../readBarFile.ts';
+
+const positive = (n: number): string | null => (n > 0 ? null : 'must be greater than 0');
+const nonNegative = (n: number): string | null => (n >= 0 ? null : 'must be 0 or more');
+
+/** `barwright design BAR (--note NAME | --hz F) …`: plans an undercut (contract). */
+export const designCommand: Command = {
+  name: 'design',
+  summary: 'plan the undercut that tunes a blank to a note and partial ratios, within workshop limits',
+  usage:
+    'barwright design BAR (--note NAME | --hz F) [--a4 HZ] [--ratios 1:4:10|1:4|1:3|1:3:6|fundamental|A:B:C] [--tolerance-cents 2,5,15] ' +
+    '[--min-thickness-mm T] [--uncut-end-mm L] [--max-slope S] [--tool-radius-mm R] [--allow-shortening [--max-shortening-mm M]] ' +
+    '[--theory timoshenko|euler-bernoulli] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
+  async run(args, io) {
+    const { values, positionals } = parseOptions(args, {
+      note: { type: 'string' },
+      hz: { type: 'string' },
+      a4: { type: 'string' },
+      ratios: { type: 'string' },
+      'tolerance-cents': { type: 'string' },
+      'min-thickness-mm': { type: 'string' },
+      'uncut-end-mm': { type: 'string' },
+      'max-slope': { type: 'string' },
+      'tool-radius-mm': { type: 'string' },
+      'allow-shortening': { type: 'boolean' },
+      'max-shortening-mm': { type: 'string' },
+      theory: { type: 'string' },
+      out: { type: 'string' },
+      template: { type: 'string' },
+      table: { type: 'string' },
+      map: { type: 'boolean' },
+      json: { type: 'boolean' },
+    });
+    if (positionals.length !== 1) throw new InputError('command line', 'BAR', 'give exactly one bar file');
+    if ((values.note === undefined) === (values.hz === undefined)) throw new InputError('command line', '--note', 'give either --note NAME or --hz F');
+    const theory = values.theory ?? 'timoshenko';
+    if (theory !== 'timoshenko' && theory !== 'euler-bernoulli') throw new InputError('command line', '--theory', `must be timoshenko or euler-bernoulli (got "${theory}")`);
+    const hz = numberOption(values.hz, 'hz', positive);
+    const a4 = numberOption(values.a4, 'a4', positive);
+    const limits: CutLimitsInput = {};
+    const minThickness = numberOption(values['min-thickness-mm'], 'min-thickness-mm', positive);
+    if (minThickness !== undefined) limits.min_thickness_mm = minThickness;
+    const uncut = numberOption(values['uncut-end-mm'], 'uncut-end-mm', nonNegative);
+    if (uncut !== undefined) limits.uncut_end_mm = uncut;
+    const slope = numberOption(values['max-slope'], 'max-slope', positive);
+    if (slope !== undefined) limits.max_slope = slope;
+    const radius = numberOption(values['tool-radius-mm'], 'tool-radius-mm', nonNegative);
+    if (radius !== undefined) limits.min_tool_radius_mm = radius;
+    if (values['allow-shortening']) limits.allow_shortening = true;
+    const shortening = numberOption(values['max-shortening-mm'], 'max-shortening-mm', nonNegative);
+    if (shortening !== undefined) limits.max_shortening_mm = shortening;
+    const path = positionals[0]!;
+    const bar = await readBarFile(path, io);
+    const request: DesignRequest = {
+      target: {
+        ...(values.note !== undefined ? { note: values.note } : {}),
+        ...(hz !== undefined ? { hz } : {}),
+        ...(a4 !== undefined ? { a4 } : {}),
+        ratios: values.ratios ?? '1:4:10',
+        ...(values['tolerance-cents'] !== undefined ? { tolerance_cents: parseToleranceList(values['tolerance-cents']) } : {}),
+      },
+      limits,
+      theory,
+    };
+    const result = designBar(bar, request, {}, 'command line');
+    const table = stationTable(result.bar);
+    const map = values.map ? whereToCutMap(result.bar, { theory }) : undefined;
+    const subtitle = `${result.note ?? `${result.target_hz[0]} Hz`} at A4 = ${result.a4_hz} Hz, ratios ${result.ratios.join(':')}, ${result.bar.length_mm} mm × ${result.bar.section.shape === 'rect' ? result.bar.section.width_mm : 0} mm, blank ${result.bar.section.shape === 'rect' ? result.bar.section.thickness_mm : 0} mm`;
+    if (values.out) await io.writeFile(values.out, `${toJson(result.bar)}\n`);
+    if (values.template) await io.writeFile(values.template, profileTemplateSvg(result.bar, { title: result.bar.label ?? path, subtitle, cord_holes_mm: result.cord_holes_mm }));
+    if (values.table) await io.writeFile(values.table, stationTableCsv(table));
+    if (values.json) {
+      io.stdout(toJson({ ...result, station_table: table, ...(map ? { where_to_cut: map } : {}) }));
+      return 0;
+    }
+    const lines: string[] = [];
+    lines.push(`${bar.label ?? path}: undercut for ${subtitle}`);
+    lines.push(result.feasible ? 'Feasible: every partial within tolerance.' : `NOT FEASIBLE — ${result.reason ?? 'targets not reached'}`);
+    lines.push('');
+    lines.push(
+      formatTable([
+        ['partial', 'target Hz', 'predicted Hz', 'cents', 'tolerance'],
+        ...result.target_hz.map((target, k) => [String(k + 1), fixed(target, 2), fixed(result.predicted_hz[k]!, 2), fixed(result.cents_error[k]!, 2), `±${result.tolerance_cents[k]}`]),
+      ]),
+    );
+    lines.push('');
+    lines.push(`Arch: ${result.shape.family}; thinnest ${fixed(result.thinnest_mm, 2)} mm at ${fixed(result.thinnest_at_mm, 1)} mm; ${fixed(result.removed_volume_mm3 / 1000, 1)} cm³ removed${result.shortened_mm > 0 ? `; shortened by ${fixed(result.shortened_mm, 1)} mm (half at each end)` : ''}.`);
+    lines.push(`Cord holes (nodes of the fundamental): ${result.cord_holes_mm.map((x) => `${fixed(x, 1)} mm`).join(', ')} from the left end.`);
+    lines.push(`Limits at their edge: ${result.binding_limits.length ? result.binding_limits.join(', ') : 'none'} (min thickness ${result.limits.min_thickness_mm} mm, uncut ends ${result.limits.uncut_left_mm} / ${result.limits.uncut_right_mm} mm, max slope ${result.limits.max_slope}, tool radius ${result.limits.min_tool_radius_mm} mm).`);
+    lines.push(`${result.solves} solver runs.`);
+    for (const warning of result.warnings) lines.push(`Warning: ${warning}`);
+    lines.push('');
+    lines.push('Thickness every 5 mm from the centre line (rows inside the cut, and the ends):');
+    const cutRows = table.filter((row, i) => row.depth_mm > 0 || i === 0 || i === table.length - 1 || (table[i - 1]?.depth_mm ?? 0) > 0 || (table[i + 1]?.depth_mm ?? 0) > 0);
+    lines.push(formatTable([['from centre mm', 'from left mm', 'thickness mm', 'depth mm'], ...cutRows.map((r) => [fixed(r.from_centre_mm, 1), fixed(r.from_left_mm, 1), fixed(r.thickness_mm, 2), fixed(r.depth_mm, 2)])]));
+    if (map) {
+      lines.push('');
+      lines.push(`Where to cut: cents per ${map.depth_mm} mm removed over ${map.strip_mm} mm, every 10 mm from the left end:`);
+      const every = Math.max(1, Math.round(10 / (map.positions_mm[1]! - map.positions_mm[0]!)));
+      const rows = map.positions_mm.map((x, i) => [fixed(x, 1), ...map.partials.map((p) => fixed(p.cents[i]!, 3))]).filter((_, i) => i % every === 0);
+      lines.push(formatTable([['from left mm', ...map.partials.map((p) => `partial ${p.partial}`)], ...rows]));
+    }
+    if (values.out) lines.push('', `Designed bar written to ${values.out}.`);
+    if (values.template) lines.push(`1:1 template written to ${values.template} (print at 100 %, check the scale bar).`);
+    if (values.table) lines.push(`Thickness table written to ${values.table}.`);
+    lines.push('');
+    for (const caution of result.cautions) lines.push(`Caution: ${caution}`);
+    io.stdout(lines.join('\n'));
+    return 0;
+  },
+};

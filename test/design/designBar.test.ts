@@ -1,0 +1,204 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { analyzeBar } from '../../src/modes/analyzeBar.ts';
+import { barModelFromFile } from '../../src/modes/BarModel.ts';
+import { parseBarFile, type BarFile } from '../../src/project/barFile.ts';
+import { thicknessAt } from '../../src/section/ThicknessProfile.ts';
+import { checkProfile, resolveCutLimits } from '../../src/design/cutLimits.ts';
+import { designBar, type DesignRequest, type DesignResult } from '../../src/design/designBar.ts';
+
+const fixture = (name: string): BarFile => parseBarFile(JSON.parse(readFileSync(`fixtures/${name}.bar.json`, 'utf8')), name);
+/** An invented uniform blank of the demo workshop's generic dense hardwood. */
+const blank = (length_mm: number, width_mm: number, thickness_mm: number): BarFile => ({
+  format: 'barwright.bar',
+  version: 1,
+  label: `blank ${length_mm} × ${width_mm} × ${thickness_mm}`,
+  length_mm,
+  section: { shape: 'rect', width_mm, thickness_mm },
+  material: { preset: 'demo-tropical-hardwood' },
+});
+
+/** Re-analysis mesh: about 1000 elements, some 20–60 times finer than the designer's own. */
+const fineElements = 1000;
+
+/** Checks every promise a feasible design makes, against an independent fine-mesh analysis. */
+function expectGoodDesign(bar: BarFile, request: DesignRequest, result: DesignResult): number {
+  expect(result.feasible).toBe(true);
+  expect(result.reason).toBeUndefined();
+  // The returned bar is a valid bar file of the same blank.
+  const designed = parseBarFile(JSON.parse(JSON.stringify(result.bar)), 'designed');
+  expect(designed.section).toEqual(bar.section);
+  // Every workshop limit holds against the bar as it was.
+  const original = barModelFromFile(bar);
+  const limits = resolveCutLimits(request.limits, { length: original.length, thickness: (bar.section.shape === 'rect' ? bar.section.thickness_mm : 0) * 1e-3 });
+  expect(checkProfile(barModelFromFile(designed).profile, original.profile, limits)).toEqual([]);
+  // A station at least every 10 mm over the arch (contract).
+  const pairs = designed.profile_mm!;
+  const blankThickness = bar.section.shape === 'rect' ? bar.section.thickness_mm : 0;
+  for (let i = 0; i + 1 < pairs.length; i++) {
+    const cutHere = pairs[i]![1] < blankThickness - 1e-6 || pairs[i + 1]![1] < blankThickness - 1e-6;
+    if (cutHere) expect(pairs[i + 1]![0] - pairs[i]![0]).toBeLessThanOrEqual(10 + 1e-9);
+  }
+  // The targets are met on a much finer mesh, within the maker's tolerances.
+  const fine = analyzeBar(designed, { modes: Math.max(3, result.target_hz.length), elements: fineElements });
+  let worst = 0;
+  result.target_hz.forEach((target, k) => {
+    const cents = 1200 * Math.log2(fine.bending[k]!.hz / target);
+    expect(Math.abs(cents)).toBeLessThanOrEqual(result.tolerance_cents[k]!);
+    // The design's own prediction agrees with the fine mesh to 0.05 cent (mesh convergence).
+    expect(Math.abs(cents - result.cents_error[k]!)).toBeLessThan(0.05);
+    worst = Math.max(worst, Math.abs(cents) / result.tolerance_cents[k]!);
+  });
+  // Cord holes are the nodes of the fundamental of the final shape (fine mesh to 0.1 mm rounding).
+  expect(result.cord_holes_mm).toHaveLength(2);
+  result.cord_holes_mm.forEach((x, i) => expect(Math.abs(x - fine.bending[0]!.nodes_mm![i]!)).toBeLessThan(0.1));
+  expect(result.removed_volume_mm3).toBeGreaterThan(0);
+  expect(JSON.stringify(result)).not.toMatch(/NaN|Infinity|null/);
+  return worst;
+}
+
+// Lengths from the blank advisor's comfortable ranges for these sections (see adviseBlankLength.test.ts).
+const keyboard: [string, BarFile, DesignRequest][] = [
+  ['A2 1:4:10, low (demo blank)', fixture('a2-blank'), { target: { note: 'A2', a4: 442, ratios: '1:4:10' } }],
+  ['A2 1:3, low', blank(843, 64, 25), { target: { note: 'A2', a4: 442, ratios: '1:3' } }],
+  ['F3 1:4:10, low-middle', blank(462, 58, 24), { target: { note: 'F3', a4: 442, ratios: '1:4:10' } }],
+  ['C4 1:4:10, middle', blank(353, 55, 22), { target: { note: 'C4', a4: 442, ratios: '1:4:10' } }],
+  ['C5 1:4, middle (demo blank)', fixture('c5-blank'), { target: { note: 'C5', a4: 442, ratios: '1:4' } }],
+  ['C5 1:3, middle', blank(340, 50, 21), { target: { note: 'C5', a4: 442, ratios: '1:3' } }],
+  ['C6 1:3, high', blank(219, 45, 19), { target: { note: 'C6', a4: 442, ratios: '1:3' } }],
+  ['C7 1:3, top', blank(139, 40, 19), { target: { note: 'C7', a4: 442, ratios: '1:3' } }],
+  ['C7 fundamental only, top (demo blank)', fixture('c7-blank'), { target: { note: 'C7', a4: 442, ratios: 'fundamental' } }],
+];
+
+describe('designBar over the range of a keyboard', () => {
+  it.each(keyboard)('%s: meets the targets on a fine mesh, within every limit', (_name, bar, request) => {
+    const result = designBar(bar, request);
+    const worst = expectGoodDesign(bar, request, result);
+    expect(worst).toBeLessThanOrEqual(1);
+  });
+
+  it('continues an asymmetric rough cut, removing only from what is there', () => {
+    const rough: BarFile = {
+      ...blank(462, 58, 24),
+      profile_mm: [[0, 24], [120, 24], [170, 21], [215, 19.5], [250, 20.5], [300, 23], [330, 24], [462, 24]],
+    };
+    const request: DesignRequest = { target: { note: 'F3', a4: 442, ratios: '1:4:10' } };
+    const result = designBar(rough, request);
+    expectGoodDesign(rough, request, result);
+    for (const [x, t] of rough.profile_mm!) {
+      const designed = result.bar.profile_mm!;
+      const k = designed.findIndex(([p]) => p >= x - 1e-9);
+      expect(designed[k]![0]).toBeCloseTo(x, 6);
+      expect(designed[k]![1]).toBeLessThanOrEqual(t + 1e-9);
+    }
+  });
+
+  it('honours custom limits: thicker minimum, longer uncut ends, a gentler slope and a larger tool', () => {
+    const request: DesignRequest = {
+      target: { note: 'C4', a4: 442, ratios: '1:4:10' },
+      limits: { min_thickness_mm: 7, uncut_end_mm: 55, max_slope: 0.45, min_tool_radius_mm: 30 },
+    };
+    const bar = blank(353, 55, 22);
+    const result = designBar(bar, request);
+    expect(result.limits).toMatchObject({ min_thickness_mm: 7, uncut_left_mm: 55, uncut_right_mm: 55, max_slope: 0.45, min_tool_radius_mm: 30 });
+    expect(result.thinnest_mm).toBeGreaterThanOrEqual(7 - 1e-6);
+    const original = barModelFromFile(bar);
+    expect(checkProfile(barModelFromFile(result.bar).profile, original.profile, resolveCutLimits(request.limits, { length: 0.353, thickness: 0.022 }))).toEqual([]);
+    if (result.feasible) expectGoodDesign(bar, request, result);
+    else expect(result.reason).toMatch(/limited by|What would help/);
+  });
+
+  it('shortens a blank that is too long when allowed, and only then', () => {
+    // 5 % longer than the advisor's longest comfortable C4 blank: the arch for 1:4:10 takes the
+    // fundamental flat, so the length must come down.
+    const bar = blank(392, 55, 22);
+    const fixed = designBar(bar, { target: { note: 'C4', a4: 442, ratios: '1:4:10' } });
+    expect(fixed.feasible).toBe(false);
+    expect(fixed.shortened_mm).toBe(0);
+    expect(fixed.reason).toMatch(/too long.*shorter blank \(about \d+(\.\d)? mm\)/);
+    const request: DesignRequest = { target: { note: 'C4', a4: 442, ratios: '1:4:10' }, limits: { allow_shortening: true, max_shortening_mm: 60 } };
+    const shortened = designBar(bar, request);
+    expect(shortened.feasible).toBe(true);
+    expect(shortened.shortened_mm).toBeGreaterThan(0);
+    expect(shortened.shortened_mm).toBeLessThanOrEqual(60);
+    expect(shortened.bar.length_mm).toBeCloseTo(392 - shortened.shortened_mm, 6);
+    const fine = analyzeBar(shortened.bar, { modes: 3, elements: fineElements });
+    fine.bending.slice(0, 3).forEach((mode, k) => expect(Math.abs(1200 * Math.log2(mode.hz / shortened.target_hz[k]!))).toBeLessThanOrEqual(shortened.tolerance_cents[k]!));
+    expect(checkProfile(barModelFromFile(shortened.bar).profile, barModelFromFile(bar).profile, resolveCutLimits(request.limits, { length: 0.392, thickness: 0.022 }))).toEqual([]);
+  });
+});
+
+describe('cord-hole warnings', () => {
+  it('warns exactly when a cord hole falls where material is removed', () => {
+    // Short uncut ends let the arch run out past the nodes of a C4 bar.
+    const bar: BarFile = { length_mm: 353, section: { shape: 'rect', width_mm: 60, thickness_mm: 24 }, material: { preset: 'demo-tropical-hardwood' } };
+    const result = designBar(bar, { target: { note: 'C4', a4: 442 }, limits: { uncut_end_mm: 10 } });
+    const profile = barModelFromFile(result.bar).profile;
+    const insideCut = result.cord_holes_mm.filter((x) => 24 - 1e3 * thicknessAt(profile, x * 1e-3) > 0.05);
+    expect(result.warnings).toHaveLength(insideCut.length);
+    expect(insideCut.length).toBeGreaterThan(0);
+    expect(result.warnings[0]).toMatch(/cord hole at [\d.]+ mm falls inside the cut/);
+    expect(designBar(blank(353, 55, 22), { target: { note: 'C4', a4: 442 } }).warnings).toEqual([]);
+  });
+});
+
+describe('designBar when the targets cannot be met', () => {
+  it('says so, with the binding limit and what would help, and still returns a shape within the limits', () => {
+    // The top bar cannot reach 1:4:10: its partials are far too close on so short and thick a bar.
+    const bar = fixture('c7-blank');
+    const result = designBar(bar, { target: { note: 'C7', a4: 442, ratios: '1:4:10' } });
+    expect(result.feasible).toBe(false);
+    expect(result.reason).toMatch(/closest shape: .*(limited by|too long|out of reach).*What would help: .*(thinner|shorter|longer|other ratios)/);
+    expect(result.cents_error.some((c, k) => Math.abs(c) > result.tolerance_cents[k]!)).toBe(true);
+    const original = barModelFromFile(bar);
+    expect(checkProfile(barModelFromFile(result.bar).profile, original.profile, resolveCutLimits(undefined, { length: original.length, thickness: 0.019 }))).toEqual([]);
+    expect(JSON.stringify(result)).not.toMatch(/NaN|Infinity|null/);
+  });
+  it('tells a blank that is already flat before any cut', () => {
+    const result = designBar(fixture('a2-blank'), { target: { note: 'C5', a4: 442, ratios: '1:4:10' } });
+    expect(result.feasible).toBe(false);
+    expect(result.reason).toMatch(/already \d+(\.\d)? cents flat .* before any cut.*shorter blank/);
+  });
+  it('tells a blank too long for the ratios from ratios out of reach', () => {
+    const tooLong = designBar(blank(330, 50, 21), { target: { note: 'C5', a4: 442, ratios: '1:4:10' } });
+    expect(tooLong.feasible).toBe(false);
+    expect(tooLong.reason).toMatch(/the blank is too long for this note|ratios stay out of reach/);
+  });
+});
+
+describe('designBar as a worker calls it', () => {
+  const bar = blank(353, 55, 22);
+  const request: DesignRequest = { target: { note: 'C4', a4: 442, ratios: '1:4:10' } };
+  it('reports progress and stops when the callback returns false, returning a valid shape', () => {
+    const seen: number[] = [];
+    const result = designBar(bar, request, { onProgress: (p) => (seen.push(p.solves), p.solves < 8) });
+    expect(seen.length).toBeGreaterThan(0);
+    expect(result.cancelled).toBe(true);
+    expect(result.feasible).toBe(false);
+    expect(result.solves).toBeLessThan(20);
+    expect(checkProfile(barModelFromFile(result.bar).profile, barModelFromFile(bar).profile, resolveCutLimits(undefined, { length: 0.353, thickness: 0.022 }))).toEqual([]);
+  });
+  it('stops on an aborted signal', () => {
+    const controller = new AbortController();
+    controller.abort();
+    const result = designBar(bar, request, { signal: controller.signal });
+    expect(result.cancelled).toBe(true);
+    expect(result.solves).toBeLessThan(5);
+  });
+  it('returns plain JSON data (survives structured cloning unchanged)', () => {
+    const result = designBar(bar, request);
+    expect(structuredClone(result)).toEqual(result);
+    expect(JSON.parse(JSON.stringify(result))).toEqual(result);
+  });
+  it.each([
+    [{ target: { note: 'C4' }, families: ['bell-curve'] }, 'design: families: unknown arch family "bell-curve"'],
+    [{ target: { note: 'C4' }, station_spacing_mm: 30 }, 'design: station_spacing_mm: must be from 1 to 10 mm (got 30)'],
+    [{ target: { note: 'C4' }, limits: { min_thickness_mm: 40 } }, "design: min_thickness_mm: 40 mm is not less than the blank's 22 mm"],
+    [{ target: {} }, 'design: note: give the note'],
+  ])('rejects a bad request %j', (bad, message) => {
+    expect(() => designBar(bar, bad as DesignRequest)).toThrow(message);
+  });
+  it('rejects a tube', () => {
+    expect(() => designBar(fixture('chime-g4'), request)).toThrow('design: section.shape: only rect bars are undercut (this bar is a tube)');
+  });
+});
