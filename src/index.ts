@@ -11,3 +11,6 @@ export * from './modes/index.ts';
 export * from './audio/index.ts';
 export * from './resonator/index.ts';
 export * from './design/index.ts';
+export * from './project/sessionFile.ts';
+export * from './project/sessionLogEdits.ts';
+export * from './session/index.ts';

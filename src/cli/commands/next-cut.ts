@@ -1,0 +1,117 @@
+import { InputError } from '../../project/InputError.ts';
+import { parseSessionFile } from '../../project/sessionFile.ts';
+import { nextCut, type NextCutResult } from '../../session/nextCut.ts';
+import { fixed, formatTable, parseOptions, readJsonFile, toJson, type Command, type CommandIo } from '../command.ts';
+
+function signed(value: number, decimals: number): string {
+  const text = fixed(value, decimals);
+  return value >= 0 ? `+${text}` : text;
+}
+
+/** Refuses to replace an existing file unless --force: nothing is overwritten silently. */
+export async function refuseOverwrite(path: string, force: boolean, io: CommandIo): Promise<void> {
+  if (force) return;
+  try {
+    await io.readText(path);
+  } catch {
+    return;
+  }
+  throw new InputError('command line', '--out', `${path} already exists; choose another name or add --force to replace it`);
+}
+
+function statusLine(result: NextCutResult): string {
+  if (result.status === 'done') return 'Status: done — every tuned partial is within tolerance. No cut.';
+  if (result.status === 'stuck') return `Status: stuck — ${result.reason ?? 'no removal helps'}`;
+  return `Status: cut — ${result.phase === 'hold' ? 'the fundamental is held a few cents sharp while the overtones are placed' : 'closing in on every target'}`;
+}
+
+/** The human-readable report of a next-cut result. */
+export function formatNextCut(result: NextCutResult, title: string): string {
+  const lines: string[] = [];
+  const c = result.calibration;
+  lines.push(title);
+  lines.push(
+    `Calibrated model: E ${fixed(c.E_GPa, 2)} GPa (±${fixed(c.E_uncertainty_percent, 1)} %), G ${fixed(c.G_GPa, 3)} GPa (±${fixed(c.G_uncertainty_percent, 1)} %), density ${fixed(result.calibrated_material.density_kg_m3, 0)} kg/m³`,
+  );
+  lines.push(`1D-model correction at this arch depth (${fixed(c.arch_depth, 2)}): ${c.correction_percent.slice(0, result.target_hz.length).map((p) => `${signed(p, 2)} %`).join(', ')}`);
+  for (const depth of c.cut_depth_percent) lines.push(`Cut before step ${depth.step} reads as ${fixed(depth.percent, 0)} % of the depth recorded (±${fixed(depth.uncertainty_percent, 0)} %)`);
+  lines.push('');
+  lines.push(
+    formatTable([
+      ['partial', 'target Hz', 'now Hz', 'now cents', 'after Hz', 'after cents', 'range cents', 'tolerance'],
+      ...result.target_hz.map((target, n) => [
+        String(n + 1),
+        fixed(target, 2),
+        fixed(result.now_hz[n]!, 2),
+        signed(result.now_cents[n]!, 1),
+        fixed(result.predicted_hz[n]!, 2),
+        signed(result.predicted_cents[n]!, 1),
+        `${signed(result.predicted_range_cents[n]![0], 1)} … ${signed(result.predicted_range_cents[n]![1], 1)}`,
+        `±${fixed(result.tolerance_cents[n]!, 0)}`,
+      ]),
+    ]),
+  );
+  lines.push('');
+  lines.push(statusLine(result));
+  if (result.cut) {
+    lines.push('');
+    if (result.cut.shortening_mm > 0) lines.push(`Shorten the bar by ${fixed(result.cut.shortening_mm, 2)} mm: ${fixed(result.cut.shortening_mm / 2, 2)} mm off each end.`);
+    if (result.cut.stations.length > 0) {
+      lines.push(`Remove from the underside (positions from the left end of the bar now; deepest ${fixed(result.cut.max_depth_mm, 2)} mm):`);
+      lines.push(
+        formatTable([
+          ['station mm', 'now mm', 'after mm', 'remove mm'],
+          ...result.cut.stations.map((s) => [fixed(s.position_mm, 1), fixed(s.thickness_now_mm, 2), fixed(s.thickness_after_mm, 2), fixed(s.remove_mm, 2)]),
+        ]),
+      );
+      lines.push(`Region${result.cut.regions_mm.length > 1 ? 's' : ''}: ${result.cut.regions_mm.map(([a, b]) => `${fixed(a, 0)}–${fixed(b, 0)} mm`).join(', ')}`);
+    }
+    lines.push('');
+    lines.push('Side view (top up; # stays, x comes off, ^ deepest part of the cut, - a little):');
+    lines.push(...result.cut.sketch);
+    lines.push('');
+    lines.push(...result.cautions.map((caution) => `caution: ${caution}`));
+  }
+  if (result.calibration.flags.length > 0) {
+    lines.push('');
+    for (const flag of result.calibration.flags) lines.push(`flagged: ${flag.reason}`);
+  }
+  const warnings = result.warnings.filter((w) => !result.calibration.flags.some((f) => w.startsWith(f.reason)));
+  if (warnings.length > 0) {
+    lines.push('');
+    lines.push(...warnings.map((w) => `warning: ${w}`));
+  }
+  return lines.join('\n');
+}
+
+/** `barwright next-cut SESSION`: calibrate the session's bar from its measurements and say where to cut next (contract). */
+export const nextCutCommand: Command = {
+  name: 'next-cut',
+  summary: 'tune-and-trim: learn the bar from its session log and say where to cut next',
+  usage: 'barwright next-cut SESSION [--out BAR [--force]] [--json]',
+  async run(args, io) {
+    const { values, positionals } = parseOptions(args, {
+      out: { type: 'string' },
+      force: { type: 'boolean' },
+      json: { type: 'boolean' },
+    });
+    if (positionals.length !== 1) throw new InputError('command line', 'SESSION', 'give exactly one session file');
+    const path = positionals[0]!;
+    const raw = await readJsonFile(path, io);
+    const log = parseSessionFile(raw, path);
+    const result = nextCut(log, { source: path });
+    if (values.out !== undefined) {
+      if (result.status !== 'cut') throw new InputError('command line', '--out', `there is no cut to write (status ${result.status})`);
+      await refuseOverwrite(values.out, values.force ?? false, io);
+      await io.writeFile(values.out, `${JSON.stringify(result.bar_after, null, 2)}\n`);
+    }
+    if (values.json) {
+      io.stdout(toJson(result));
+      return 0;
+    }
+    const steps = log.steps.length;
+    io.stdout(formatNextCut(result, `${log.label ?? path}: ${steps} step${steps === 1 ? '' : 's'}, ratios ${log.target.ratios.join(':')}`));
+    if (values.out !== undefined) io.stdout(`\nWrote the bar after the cut to ${values.out}.`);
+    return 0;
+  },
+};

@@ -1,0 +1,92 @@
+// Parsing one step of a session file (see sessionFile.ts): the bar as shaped, the partials
+// measured, and barwright's optional additions.
+import { InputError, isInputError } from './InputError.ts';
+import { parseBarFile } from './barFile.ts';
+import type { SessionLogStep } from './sessionFile.ts';
+
+/** True for a plain JSON object (not null, not an array). */
+export function isJsonObject(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+/** Longest free-text note kept in a step (characters). */
+const noteLimit = 4000;
+/** Slack (mm) when checking a measured station lies on the bar. */
+const positionSlackMm = 1e-6;
+
+function number(source: string, field: string, value: unknown, unit: string): number {
+  if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number (${unit})`);
+  return value;
+}
+
+function hzList(source: string, field: string, value: unknown, minimum: number): number[] {
+  if (!Array.isArray(value)) throw new InputError(source, field, 'must be a list of frequencies in Hz');
+  if (value.length < minimum) throw new InputError(source, field, `needs at least ${minimum} measured partial${minimum === 1 ? '' : 's'}`);
+  return value.map((item, index) => {
+    const hz = number(source, `${field}[${index}]`, item, 'Hz');
+    if (hz <= 0) throw new InputError(source, `${field}[${index}]`, `must be greater than 0 Hz (got ${hz})`);
+    if (hz > 100_000) throw new InputError(source, `${field}[${index}]`, `${hz} Hz is above 100 kHz: not a bar partial`);
+    return hz;
+  });
+}
+
+function parseMeasuredThicknesses(source: string, field: string, value: unknown, bar: SessionLogStep['bar']): [number, number][] {
+  if (bar.section.shape !== 'rect') throw new InputError(source, field, `only a rect bar has thicknesses to measure (this bar is a ${bar.section.shape})`);
+  const blank = bar.section.thickness_mm;
+  if (!Array.isArray(value) || value.length === 0) throw new InputError(source, field, 'must be a non-empty list of [position_mm, thickness_mm] pairs');
+  const pairs: [number, number][] = [];
+  value.forEach((pair: unknown, index) => {
+    const at = `${field}[${index}]`;
+    if (!Array.isArray(pair) || pair.length !== 2) throw new InputError(source, at, 'must be a [position_mm, thickness_mm] pair');
+    const position = number(source, at, pair[0], 'position, mm');
+    const thickness = number(source, at, pair[1], 'thickness, mm');
+    if (position < -positionSlackMm || position > bar.length_mm + positionSlackMm) throw new InputError(source, at, `position ${position} mm is off the ${bar.length_mm} mm bar`);
+    if (thickness <= 0) throw new InputError(source, at, `thickness ${thickness} mm must be greater than 0`);
+    if (thickness > blank + 0.5) throw new InputError(source, at, `thickness ${thickness} mm exceeds the blank's ${blank} mm`);
+    if (index > 0 && position <= pairs[index - 1]![0]) throw new InputError(source, at, `position ${position} mm must be greater than the previous measurement's ${pairs[index - 1]![0]} mm`);
+    pairs.push([position, thickness]);
+  });
+  return pairs;
+}
+
+/** Validates one step; `field` is its place in the file (`steps[3]`), used in every message. */
+export function parseSessionLogStep(source: string, field: string, value: unknown): SessionLogStep {
+  if (!isJsonObject(value)) throw new InputError(source, field, 'must be an object with "bar" and "measured_hz"');
+  let bar: SessionLogStep['bar'];
+  try {
+    bar = parseBarFile(value.bar, source);
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    throw new InputError(source, error.field === 'bar' ? `${field}.bar` : `${field}.bar.${error.field}`, error.rule);
+  }
+  const step: SessionLogStep = { bar, measured_hz: hzList(source, `${field}.measured_hz`, value.measured_hz, 1) };
+  if (value.thickness_measured_mm !== undefined) step.thickness_measured_mm = parseMeasuredThicknesses(source, `${field}.thickness_measured_mm`, value.thickness_measured_mm, bar);
+  if (value.air_temperature_c !== undefined) {
+    const temperature = number(source, `${field}.air_temperature_c`, value.air_temperature_c, '°C');
+    if (temperature < -30 || temperature > 60) throw new InputError(source, `${field}.air_temperature_c`, `${temperature} °C is outside −30 to 60 °C`);
+    step.air_temperature_c = temperature;
+  }
+  if (value.note !== undefined) {
+    if (typeof value.note !== 'string') throw new InputError(source, `${field}.note`, 'must be text');
+    if (value.note.length > noteLimit) throw new InputError(source, `${field}.note`, `must be at most ${noteLimit} characters`);
+    step.note = value.note;
+  }
+  if (value.cut !== undefined) {
+    const cut = value.cut;
+    if (!isJsonObject(cut)) throw new InputError(source, `${field}.cut`, 'must be an object such as { "made": "as-planned" }');
+    if (cut.made !== 'as-planned' && cut.made !== 'as-done')
+      throw new InputError(source, `${field}.cut.made`, `must be "as-planned" (the bar recorded is the plan) or "as-done" (the shape was measured after cutting), got ${JSON.stringify(cut.made)}`);
+    if (cut.note !== undefined && typeof cut.note !== 'string') throw new InputError(source, `${field}.cut.note`, 'must be text');
+    step.cut = typeof cut.note === 'string' ? { made: cut.made, note: cut.note } : { made: cut.made };
+  }
+  if (value.recorded_at !== undefined) {
+    if (typeof value.recorded_at !== 'string' || Number.isNaN(Date.parse(value.recorded_at))) throw new InputError(source, `${field}.recorded_at`, 'must be a date and time (ISO 8601)');
+    step.recorded_at = value.recorded_at;
+  }
+  if (value.predicted_hz !== undefined) step.predicted_hz = hzList(source, `${field}.predicted_hz`, value.predicted_hz, 0);
+  if (value.source !== undefined) {
+    if (value.source !== 'typed' && value.source !== 'microphone' && value.source !== 'file') throw new InputError(source, `${field}.source`, 'must be "typed", "microphone" or "file"');
+    step.source = value.source;
+  }
+  return step;
+}

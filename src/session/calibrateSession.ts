@@ -1,0 +1,233 @@
+import type { BarModel } from '../modes/BarModel.ts';
+import { InputError } from '../project/InputError.ts';
+import { defaultMeasurementUncertaintyCents, type SessionLog } from '../project/sessionFile.ts';
+import { defaultCalibrationPriors, flagFloorCents, flagSigmas, maxFlagged, type CalibrationPriors } from './calibrationPriors.ts';
+import { fitModuli, type FitResult, type FitShape, type LinearPrior } from './fitModuli.ts';
+import { sessionShapes } from './sessionShapes.ts';
+import { uniformModelAllowanceCents } from './characterizeBlank.ts';
+import { hzToAbsoluteCents, type PartialEvaluation } from './partialModel.ts';
+import { sessionLogWarnings } from './sessionLogWarnings.ts';
+
+/** A measurement set aside because no plausible model explains it. */
+export interface MeasurementFlag {
+  /** Step number, 1-based. */
+  step: number;
+  /** Partial number, 1-based. */
+  partial: number;
+  hz: number;
+  /** How far (cents) the measurement lies from what the rest of the session predicts for it; null for an out-of-order list. */
+  residual_cents: number | null;
+  reason: string;
+}
+
+/** The fitted depth of a cut recorded as planned: the maker removed (1 + scale) × the planned depth. */
+export interface CutDepthEstimate {
+  /** Step number (1-based) the cut led to. */
+  step: number;
+  scale: number;
+  /** One-sigma uncertainty of the scale. */
+  sigma: number;
+}
+
+/** One step as the calibration sees it. */
+export interface CalibratedStep {
+  /** The step's estimated real shape in SI (measured thicknesses and fitted cut depths applied), with the calibrated moduli. */
+  readonly model: BarModel;
+  readonly depth: number;
+  readonly measuredHz: readonly number[];
+  /** The calibrated model's partials for this shape (Hz), as many as measured. */
+  readonly fittedHz: number[];
+  /** Measured − fitted, cents; null where the measurement was set aside. */
+  readonly residualCents: (number | null)[];
+  /** The one-sigma allowance each measurement was weighed with, cents. */
+  readonly sigmaCents: number[];
+}
+
+/** The calibrated model of the bar in a session: material, per-partial corrections, their uncertainty. */
+export interface SessionCalibration {
+  /** Young's modulus (Pa) and shear modulus (Pa) fitted; density (kg/m³) from the bar file. */
+  readonly youngModulus: number;
+  readonly shearModulus: number;
+  readonly density: number;
+  /** Posterior one-sigma of ln E and ln G (relative uncertainties). */
+  readonly lnYoungSigma: number;
+  readonly lnShearSigma: number;
+  /** Per-partial corrections c_n (fraction of frequency per unit arch depth). */
+  readonly corrections: number[];
+  /** The fitted depth of each cut recorded as planned since the last anchored step. */
+  readonly cutDepths: CutDepthEstimate[];
+  /** Parameters [ln E, ln G, c_1…, cut depth scales…] and their posterior covariance. */
+  readonly parameters: number[];
+  readonly covariance: number[][];
+  readonly steps: CalibratedStep[];
+  readonly flags: MeasurementFlag[];
+  readonly warnings: string[];
+  /** The partial evaluation of the current (last) shape at the calibrated moduli. */
+  readonly current: PartialEvaluation;
+  /** How many partials the calibrated model carries. */
+  readonly modes: number;
+  readonly priors: CalibrationPriors;
+  readonly measurementSigmaCents: number;
+}
+
+/** Options of calibrateSession. */
+export interface CalibrateOptions {
+  readonly priors?: CalibrationPriors;
+}
+
+/** Most partials a calibration uses (higher ones are seldom read reliably and never tuned). */
+const maxPartials = 6;
+const ratioRange: readonly [number, number] = [Math.log(1.2), Math.log(100)];
+const centsPerDepth = 1200 / Math.LN2;
+/** Below this 1 − leverage a measurement is its own explanation and the leave-one-out check says nothing. */
+const minimumComplement = 0.02;
+
+function outOfOrderFlags(log: SessionLog): MeasurementFlag[] {
+  const flags: MeasurementFlag[] = [];
+  log.steps.forEach((step, k) => {
+    for (let n = 1; n < step.measured_hz.length; n++) {
+      if (step.measured_hz[n]! > step.measured_hz[n - 1]!) continue;
+      for (const partial of [n, n + 1])
+        if (!flags.some((f) => f.step === k + 1 && f.partial === partial))
+          flags.push({ step: k + 1, partial, hz: step.measured_hz[partial - 1]!, residual_cents: null, reason: `partials ${n} and ${n + 1} of step ${k + 1} are out of order (${step.measured_hz[n - 1]} Hz, then ${step.measured_hz[n]} Hz): swapped or misread` });
+    }
+  });
+  return flags;
+}
+
+/**
+ * Calibrates the model of a session's bar to every measurement so far: E and G plus a
+ * per-partial correction c_n that scales with arch depth (what the 1D model misses), by
+ * Gauss–Newton least squares with Gaussian priors around the maker's guess (defaultCalibrationPriors).
+ * Each measurement is weighed with the measurement uncertainty, the 1D model's allowance on a
+ * uniform bar, and allowances for what the correction cannot capture: growing with the shape's
+ * depth, and with depth × its distance in depth from the current one (the chord error of a linear
+ * correction). Each cut
+ * recorded as planned gets a fitted depth scale (prior ±10 %), so the session learns a cut not
+ * made quite as planned (see sessionShapes). A measurement that no plausible model
+ * explains — leave-one-out residual beyond 4 sigma (allowing ±15 % of the change to the nearer
+ * neighbouring step for the model's form, so a misreading is told from model error only when it is
+ * larger than that share of the change) and 10 cents, or a list out of order — is
+ * flagged and set aside, never absorbed (a misread partial, a crack, a cut not made as planned).
+ */
+export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}): SessionCalibration {
+  if (log.steps.length === 0) throw new InputError('session', 'steps', 'needs at least one measured step');
+  const priors = options.priors ?? defaultCalibrationPriors;
+  const sigmaMeasure = log.measurement_uncertainty_cents ?? defaultMeasurementUncertaintyCents;
+  const shapes = sessionShapes(log);
+  const models = shapes.map((shape) => shape.model);
+  const depthOf = (model: BarModel): number => (model.section.shape === 'rect' ? Math.max(0, 1 - Math.min(...model.profile.thicknesses) / model.section.thickness) : 0);
+  const depthNow = depthOf(models[models.length - 1]!);
+  const modes = Math.min(maxPartials, Math.max(log.target.ratios.length, ...log.steps.map((s) => s.measured_hz.length)));
+  const corrections = modes;
+  const flags = outOfOrderFlags(log);
+  const measured = log.steps.map((step) => Array.from(hzToAbsoluteCents(step.measured_hz.slice(0, modes))));
+  const sigmas = log.steps.map((_, k) =>
+    measured[k]!.map(() => {
+      const depth = depthOf(models[k]!);
+      // The correction is exact (zero) on the uncut blank and fitted at the current depth; between
+      // them its linear form errs most, like the error of a chord: ∝ depth·(distance to now).
+      const form = priors.correctionFormSigma * centsPerDepth * depth * Math.abs(depthNow - depth);
+      const remainder = priors.modelFormSigma * centsPerDepth * depth;
+      return Math.sqrt(sigmaMeasure ** 2 + uniformModelAllowanceCents ** 2 + form ** 2 + remainder ** 2);
+    }),
+  );
+  // One depth scale per cut recorded as planned (shared by every later step that inherits it).
+  const cutIndex = new Map<number, number>();
+  for (const shape of shapes) for (const removal of shape.removals) if (!cutIndex.has(removal.cut)) cutIndex.set(removal.cut, 2 + corrections + cutIndex.size);
+  const size = 2 + corrections + cutIndex.size;
+  const guess = models[0]!.material;
+  const unit = (i: number): number[] => Array.from({ length: size }, (_, j) => (j === i ? 1 : 0));
+  const linearPriors: LinearPrior[] = [
+    { coefficients: unit(0), mean: Math.log(guess.youngModulus), sigma: priors.lnYoungSigma },
+    { coefficients: unit(1), mean: Math.log(guess.shearModulus), sigma: priors.lnShearSigma },
+    ...Array.from({ length: corrections }, (_, n) => ({ coefficients: unit(2 + n), mean: 0, sigma: priors.correctionSigma })),
+    ...[...cutIndex.values()].map((index) => ({ coefficients: unit(index), mean: 0, sigma: priors.plannedCutSigma })),
+  ];
+  const excluded = (k: number, n: number): boolean => flags.some((f) => f.step === k + 1 && f.partial === n + 1);
+  const shapesFor = (): FitShape[] =>
+    shapes.map((shape, k) => ({
+      model: shape.model,
+      measuredCents: measured[k]!.map((c, n) => (excluded(k, n) ? null : c)),
+      sigmaCents: sigmas[k]!,
+      removals: shape.removals.map((removal) => ({ parameter: cutIndex.get(removal.cut)!, values: removal.values })),
+    }));
+  /** The nearest reading of partial n before (direction −1) or after (+1) step k that is not set aside. */
+  const nearestKept = (k: number, n: number, direction: -1 | 1): number | undefined => {
+    for (let j = k + direction; j >= 0 && j < measured.length; j += direction) if (measured[j]![n] !== undefined && !excluded(j, n)) return measured[j]![n];
+    return undefined;
+  };
+  let start = [Math.log(guess.youngModulus), Math.log(guess.shearModulus), ...new Array<number>(size - 2).fill(0)];
+  let fit: FitResult = fitModuli({ shapes: shapesFor(), corrections, priors: linearPriors, start, lnRatioRange: ratioRange });
+  for (let round = 0; round < maxFlagged; round++) {
+    let worst: { k: number; n: number; z: number; predictive: number } | null = null;
+    fit.residualCents.forEach((row, k) =>
+      row.forEach((residual, n) => {
+        if (residual === null) return;
+        const complement = 1 - fit.leverage[k]![n]!;
+        // A measurement that alone determines a parameter cannot be checked against the others.
+        if (complement < minimumComplement) return;
+        const predictive = residual / complement;
+        // The rest of the session predicts this reading from its neighbours through the model:
+        // allow the model's form error over the smaller change to a neighbouring step (the nearest
+        // reading of the same partial not set aside, on either side).
+        const neighbours = [nearestKept(k, n, -1), nearestKept(k, n, 1)].filter((c): c is number => c !== undefined);
+        const nearest = neighbours.length ? Math.min(...neighbours.map((c) => Math.abs(measured[k]![n]! - c))) : 0;
+        const change = priors.changeFormSigma * nearest;
+        const z = predictive / Math.sqrt(sigmas[k]![n]! ** 2 / complement + change ** 2);
+        if (Math.abs(z) > flagSigmas && Math.abs(predictive) > flagFloorCents && (worst === null || Math.abs(z) > Math.abs(worst.z))) worst = { k, n, z, predictive };
+      }),
+    );
+    if (worst === null) break;
+    const { k, n, predictive } = worst as { k: number; n: number; z: number; predictive: number };
+    flags.push({
+      step: k + 1,
+      partial: n + 1,
+      hz: log.steps[k]!.measured_hz[n]!,
+      residual_cents: predictive,
+      reason: `partial ${n + 1} of step ${k + 1} (${log.steps[k]!.measured_hz[n]!.toFixed(2)} Hz) is ${predictive >= 0 ? '+' : ''}${predictive.toFixed(1)} cents from what the rest of the session explains: a misread partial, a crack, or a cut not made as recorded?`,
+    });
+    start = fit.parameters;
+    fit = fitModuli({ shapes: shapesFor(), corrections, priors: linearPriors, start, lnRatioRange: ratioRange });
+  }
+  const p = fit.parameters;
+  const youngModulus = Math.exp(p[0]!);
+  const shearModulus = Math.exp(p[1]!);
+  const steps: CalibratedStep[] = fit.models.map((model, k) => ({
+    model: { ...model, material: { ...model.material, youngModulus, shearModulus } },
+    depth: fit.depths[k]!,
+    measuredHz: log.steps[k]!.measured_hz,
+    fittedHz: Array.from(fit.fittedCents[k]!.subarray(0, log.steps[k]!.measured_hz.length), (c) => 2 ** (c / 1200)),
+    residualCents: fit.residualCents[k]!,
+    sigmaCents: sigmas[k]!,
+  }));
+  const cutDepths: CutDepthEstimate[] = [...cutIndex.entries()].map(([step, index]) => ({ step, scale: p[index]!, sigma: Math.sqrt(fit.covariance[index]![index]!) }));
+  const warnings = [...sessionLogWarnings(log)];
+  if (Math.abs(p[0]! - Math.log(guess.youngModulus)) > 3 * priors.lnYoungSigma)
+    warnings.push(`the calibrated E (${(youngModulus / 1e9).toFixed(2)} GPa) is far from the starting guess (${(guess.youngModulus / 1e9).toFixed(2)} GPa): check the bar file's dimensions, density and material`);
+  p.slice(2, 2 + corrections).forEach((c, n) => {
+    if (Math.abs(c) > 3 * priors.correctionSigma && depthNow > 0)
+      warnings.push(`partial ${n + 1} needs a ${(100 * c * depthNow).toFixed(1)} % correction at this depth, beyond the 2–3 % the 1D model usually misses: a crack, or cuts not as recorded?`);
+  });
+  for (const estimate of cutDepths)
+    if (Math.abs(estimate.scale) > 2 * priors.plannedCutSigma)
+      warnings.push(`the cut before step ${estimate.step} reads as about ${(100 * Math.abs(estimate.scale)).toFixed(0)} % ${estimate.scale > 0 ? 'deeper' : 'shallower'} than recorded: measure the thicknesses at a few stations and record them with the step`);
+  return {
+    youngModulus,
+    shearModulus,
+    density: guess.density,
+    lnYoungSigma: Math.sqrt(fit.covariance[0]![0]!),
+    lnShearSigma: Math.sqrt(fit.covariance[1]![1]!),
+    corrections: p.slice(2, 2 + corrections),
+    cutDepths,
+    parameters: p,
+    covariance: fit.covariance,
+    steps,
+    flags,
+    warnings,
+    current: fit.evaluations[fit.evaluations.length - 1]!,
+    modes,
+    priors,
+    measurementSigmaCents: sigmaMeasure,
+  };
+}
