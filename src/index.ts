@@ -14,3 +14,4 @@ export * from './design/index.ts';
 export * from './project/sessionFile.ts';
 export * from './project/sessionLogEdits.ts';
 export * from './session/index.ts';
+export * from './project/projectFile.ts';

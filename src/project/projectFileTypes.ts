@@ -1,0 +1,128 @@
+// Types of barwright's project file (`*.project.json`, format "barwright.project"). A project
+// is one instrument being built: its range, reference pitch, timber and target ratios per
+// register, and every bar with its blank, its shape now, its plan and its session log. Bars embed
+// the contract's bar-file and session-file shapes so each can be exported to the CLI as is.
+
+import type { BarFile, BarFileMaterial } from './barFile.ts';
+
+/** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
+export interface SessionTarget {
+  hz?: number;
+  note?: string;
+  a4?: number;
+  ratios: number[];
+  tolerance_cents: number[];
+}
+
+/** One measured round: the bar as shaped when it was struck, and the partials heard (Hz). */
+export interface SessionStep {
+  bar: BarFile;
+  measured_hz: number[];
+  /** When the round was recorded (ISO 8601); barwright's own addition. */
+  recorded_at?: string;
+  /** What the model predicted for this shape before it was struck (Hz), when known. */
+  predicted_hz?: number[];
+  /** How the partials were taken: typed in, heard by the microphone, or read from a file. */
+  source?: 'typed' | 'microphone' | 'file';
+  /** The cut made since the previous step: as advised (`as-planned`) or entered by hand (`as-done`). */
+  cut?: { made: 'as-planned' | 'as-done'; note?: string };
+}
+
+/** The contract's session file (`*.session.json`). */
+export interface SessionFile {
+  format: 'barwright.session';
+  version: 1;
+  target: SessionTarget;
+  limits: { min_thickness_mm: number };
+  steps: SessionStep[];
+}
+
+/** Where a bar stands: not started, rough-cut, being tuned, or done. */
+export type BarState = 'not-started' | 'rough' | 'tuning' | 'done';
+
+/** The planned undercut, as the planner returned it. */
+export interface DesignRecord {
+  feasible: boolean;
+  bar: BarFile;
+  target_hz: number[];
+  predicted_hz: number[];
+  cents_error: number[];
+  reason?: string;
+  planned_at: string;
+}
+
+/** The last cut advice, kept so the round screen can show it after a reload. */
+export interface CutAdvice {
+  status: 'cut' | 'done' | 'stuck';
+  bar_after: BarFile;
+  predicted_hz: number[];
+  calibrated_material?: BarFileMaterial;
+  reason?: string;
+  /** Number of session steps the advice was computed from (stale when steps change). */
+  from_steps: number;
+  advised_at: string;
+}
+
+/** A group of bars sharing target ratios, tolerances and resonator size. */
+export interface Register {
+  id: string;
+  label: string;
+  family: 'keyboard' | 'chime';
+  ratios: number[];
+  tolerance_cents: number[];
+  /** Inner diameter of the resonator tubes under this register, mm (keyboard only). */
+  resonator_inner_diameter_mm?: number;
+}
+
+/** One bar (or chime tube) of the project. */
+export interface ProjectBar {
+  id: string;
+  note: string;
+  register: string;
+  state: BarState;
+  /** The blank as bought and cut to length, before any undercut. */
+  blank: BarFile;
+  /** The bar as it is now. */
+  current: BarFile;
+  design: DesignRecord | null;
+  session: SessionFile;
+  advice: CutAdvice | null;
+  /** What the calibrated model expects this shape to sound (Hz), set when an advised cut is made. */
+  expected_hz?: number[];
+  notes: string;
+  updated_at: string;
+}
+
+/** The instrument a project builds. */
+export interface Instrument {
+  name: string;
+  lowest_note: string;
+  highest_note: string;
+  a4_hz: number;
+  /** The maker's starting guess for the timber (each bar carries its own copy). */
+  material: BarFileMaterial;
+  registers: Register[];
+  /** Air temperature of the room the instrument will be played in, °C (for resonators). */
+  air_temperature_c: number;
+  /** Resonator open end: unflanged (plain tube) or flanged (end correction 0.6133 r or 0.8216 r). */
+  resonator_end: 'unflanged' | 'flanged';
+}
+
+/** The project file, current version. */
+export interface ProjectFile {
+  format: 'barwright.project';
+  version: 2;
+  id: string;
+  name: string;
+  /** Increases by one on every save; a save based on an older revision is refused. */
+  revision: number;
+  saved_at: string | null;
+  instrument: Instrument;
+  bars: ProjectBar[];
+}
+
+/** Current version of the project file format. */
+export const projectFileVersion = 2;
+
+/** The `format` value of a project file. */
+export const projectFileFormat = 'barwright.project';

@@ -1,0 +1,58 @@
+// The workshop cautions, shown where a cut is planned: one calm line, with the fuller note a
+// click away. Never a pop-up, never repeated in the way.
+import { LitElement, html, css } from 'lit';
+import { customElement } from 'lit/decorators.js';
+import { sharedStyles } from '../styles/sharedStyles.ts';
+
+/** `<bw-cautions>` */
+@customElement('bw-cautions')
+export class BwCautions extends LitElement {
+  static override styles = [
+    sharedStyles,
+    css`
+      :host {
+        display: block;
+        margin: 0.6rem 0;
+      }
+      .caution {
+        background: var(--bw-caution-ground);
+        color: var(--bw-caution-ink);
+        border-left: 5px solid var(--bw-caution-ink);
+        border-radius: 6px;
+        padding: 0.5rem 0.8rem;
+      }
+      summary {
+        color: var(--bw-caution-ink);
+        min-height: var(--bw-touch);
+      }
+      ul {
+        margin: 0.3rem 0 0.2rem;
+        padding-left: 1.2rem;
+      }
+      li {
+        margin-bottom: 0.25rem;
+      }
+    `,
+  ];
+
+  protected override render() {
+    return html`<div class="caution" role="note" aria-label="Workshop cautions">
+      <details>
+        <summary>Before cutting: cut less than predicted, guard the tools, extract the dust. More…</summary>
+        <ul>
+          <li><strong>Cut less than predicted.</strong> Predictions are estimates; wood cannot be put back. Take part of the advised cut, let the bar rest, strike and measure again.</li>
+          <li><strong>Power tools</strong> (band saw, drum or belt sander, grinder, router): keep the guards on, wear eye and hearing protection, keep hands clear of the blade, and follow the tool maker's instructions.</li>
+          <li><strong>Dust.</strong> Fine hardwood dust, tropical species especially, irritates and can sensitise the lungs: use dust extraction and a suitable respirator. For metal: deburr edges and handle cutting fluids with care.</li>
+          <li><strong>Restricted timber.</strong> Some tonewood species are trade-restricted (CITES and national rules): check before buying, selling or exporting.</li>
+          <li><strong>Local rules.</strong> Follow licensed practice and your local codes for workshops and electrical equipment.</li>
+        </ul>
+      </details>
+    </div>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'bw-cautions': BwCautions;
+  }
+}

@@ -1,0 +1,155 @@
+// Typing the partials heard: one field per partial, Enter moves to the next and, on the last,
+// records the round. Filled in when listening hears the bar. Fires `round-submit`.
+import { LitElement, html, css, nothing } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import { sharedStyles } from '../styles/sharedStyles.ts';
+import { formatHz, partialName } from '../format.ts';
+
+/** Detail of `round-submit`. */
+export interface RoundSubmitDetail {
+  hz: number[];
+  source: 'typed' | 'microphone' | 'file';
+}
+
+/** `<bw-partial-entry count .targets .filled>` */
+@customElement('bw-partial-entry')
+export class BwPartialEntry extends LitElement {
+  static override styles = [
+    sharedStyles,
+    css`
+      :host {
+        display: block;
+      }
+      .fields {
+        display: grid;
+        grid-template-columns: repeat(auto-fit, minmax(10rem, 1fr));
+        gap: 0.6rem;
+      }
+      .field {
+        display: grid;
+        gap: 0.2rem;
+      }
+      input {
+        font-size: 1.4rem;
+        font-weight: 700;
+        width: 100%;
+        text-align: right;
+        font-variant-numeric: tabular-nums;
+      }
+      .hint {
+        font-size: 0.85rem;
+        color: var(--bw-ink-muted);
+      }
+      .message {
+        color: var(--bw-problem-ink);
+        font-size: 0.9rem;
+      }
+      .actions {
+        margin-top: 0.6rem;
+      }
+    `,
+  ];
+
+  /** How many partials to enter. */
+  @property({ type: Number }) count = 3;
+  /** Target frequencies (shown as hints), Hz. */
+  @property({ attribute: false }) targets: number[] = [];
+  /** Frequencies heard by listening, to fill in (null = not heard). */
+  @property({ attribute: false }) filled: (number | null)[] | null = null;
+  /** Where `filled` came from. */
+  @property() filledFrom: 'microphone' | 'file' = 'microphone';
+
+  @state() private texts: string[] = [];
+  @state() private errors: string[] = [];
+  @state() private source: RoundSubmitDetail['source'] = 'typed';
+
+  protected override willUpdate(changed: Map<string, unknown>): void {
+    if (changed.has('filled') && this.filled) {
+      this.texts = Array.from({ length: this.count }, (_, index) => (this.filled![index] ? formatHz(this.filled![index]) : ''));
+      this.errors = [];
+      this.source = this.filledFrom;
+    }
+  }
+
+  private check(): number[] | null {
+    const errors: string[] = [];
+    const values: number[] = [];
+    let ended = false;
+    for (let index = 0; index < this.count; index += 1) {
+      const text = (this.texts[index] ?? '').trim().replace(',', '.');
+      if (text === '') {
+        if (index === 0) errors[index] = 'Enter at least the fundamental (Hz)';
+        ended = true;
+        continue;
+      }
+      const value = Number(text);
+      if (ended) errors[index] = `Fill in ${partialName(index - 1).toLowerCase()} first, or clear this one`;
+      else if (!Number.isFinite(value) || value <= 0) errors[index] = 'Must be a frequency in Hz greater than 0';
+      else if (index > 0 && value <= values[index - 1]!) errors[index] = `Must be higher than ${partialName(index - 1).toLowerCase()} (${values[index - 1]} Hz)`;
+      else values.push(value);
+    }
+    this.errors = errors;
+    return errors.some(Boolean) ? null : values;
+  }
+
+  private submit(): void {
+    const values = this.check();
+    if (!values) return;
+    this.dispatchEvent(new CustomEvent<RoundSubmitDetail>('round-submit', { detail: { hz: values, source: this.source }, bubbles: true, composed: true }));
+    this.texts = [];
+    this.source = 'typed';
+  }
+
+  /** Clears the fields (after a round was recorded elsewhere). */
+  clear(): void {
+    this.texts = [];
+    this.errors = [];
+  }
+
+  private onKey(event: KeyboardEvent, index: number): void {
+    if (event.key !== 'Enter') return;
+    event.preventDefault();
+    const next = this.renderRoot.querySelector<HTMLInputElement>(`#partial-${index + 1}`);
+    if (next && index + 1 < this.count) next.focus();
+    else this.submit();
+  }
+
+  protected override render() {
+    return html`<div class="fields">
+        ${Array.from({ length: this.count }, (_, index) => {
+          const error = this.errors[index];
+          return html`<div class="field">
+            <label for=${`partial-${index}`}>${partialName(index)} heard <span class="visually-hidden">(Hz)</span></label>
+            <input
+              id=${`partial-${index}`}
+              inputmode="decimal"
+              autocomplete="off"
+              placeholder="Hz"
+              .value=${this.texts[index] ?? ''}
+              aria-invalid=${error ? 'true' : 'false'}
+              aria-describedby=${`partial-${index}-hint`}
+              @input=${(event: Event) => {
+                const texts = [...this.texts];
+                texts[index] = (event.target as HTMLInputElement).value;
+                this.texts = texts;
+                this.source = 'typed';
+              }}
+              @keydown=${(event: KeyboardEvent) => this.onKey(event, index)}
+            />
+            <span class="hint" id=${`partial-${index}-hint`}>Hz · target ${formatHz(this.targets[index])}</span>
+            ${error ? html`<span class="message" role="alert">✕ ${error}</span>` : nothing}
+          </div>`;
+        })}
+      </div>
+      <div class="actions row">
+        <button class="primary" @click=${this.submit} data-testid="record-round">Record this round</button>
+        <span class="muted">Enter moves to the next partial; Enter on the last records.</span>
+      </div>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'bw-partial-entry': BwPartialEntry;
+  }
+}

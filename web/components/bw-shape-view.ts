@@ -1,0 +1,387 @@
+// The bar view: blank and timber, the side profile to scale (drag the stations' depths), the
+// predicted partials against their targets in cents (updated while dragging, solved in a
+// worker), mode shapes with node positions, the where-to-cut map, collision warnings and the
+// undercut planner. Engineering figures sit behind a disclosure.
+import { LitElement, html, css, nothing } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import { adoptDesign, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, withStations, type BarFile, type BarState, type CutEffectMap, type ModeResult, type ProjectFile } from '../../src/index.ts';
+import { LatestSolveController, type LatestSolveState } from '../controllers/LatestSolveController.ts';
+import { longSolver, quickSolver, type SolverOutcome } from '../worker/SolverClient.ts';
+import { sharedStyles } from '../styles/sharedStyles.ts';
+import { sendEdit } from '../events.ts';
+import { formatCents, formatHz, formatMm, formatNumber, formatRatios, partialName, stateName } from '../format.ts';
+import type { ProfileChangeDetail } from './bw-profile-drawing.ts';
+import './bw-bar-picker.ts';
+import './bw-blank-form.ts';
+import './bw-profile-drawing.ts';
+import './bw-cents-readout.ts';
+import './bw-mode-chart.ts';
+import './bw-cut-map.ts';
+import './bw-cautions.ts';
+
+/** `<bw-shape-view .project bar-id>` */
+@customElement('bw-shape-view')
+export class BwShapeView extends LitElement {
+  static override styles = [
+    sharedStyles,
+    css`
+      :host {
+        display: block;
+      }
+      .top {
+        display: flex;
+        flex-wrap: wrap;
+        justify-content: space-between;
+        gap: 0.8rem;
+        align-items: end;
+        margin-bottom: 0.8rem;
+      }
+      .layout {
+        display: grid;
+        grid-template-columns: minmax(0, 1fr);
+        gap: 1rem;
+      }
+      @media (min-width: 1100px) {
+        .layout {
+          grid-template-columns: 22rem minmax(0, 1fr);
+        }
+      }
+      .readouts {
+        display: grid;
+        grid-template-columns: repeat(auto-fit, minmax(11rem, 1fr));
+        gap: 0.6rem;
+        margin: 0.6rem 0;
+      }
+      .status {
+        font-size: 0.9rem;
+        color: var(--bw-ink-muted);
+        min-height: 1.4rem;
+      }
+      .warnings li {
+        margin-bottom: 0.3rem;
+      }
+      .stack {
+        display: grid;
+        gap: 1rem;
+        align-content: start;
+      }
+      .notes {
+        display: grid;
+        gap: 0.3rem;
+      }
+      .notes textarea {
+        width: 100%;
+        resize: vertical;
+      }
+      .state-field {
+        display: grid;
+        gap: 0.2rem;
+      }
+      .spread {
+        display: flex;
+        gap: 0.3rem 0.6rem;
+        align-items: center;
+        flex-wrap: wrap;
+      }
+      progress {
+        width: 12rem;
+        height: 1rem;
+      }
+    `,
+  ];
+
+  @property({ attribute: false }) project: ProjectFile | null = null;
+  @property({ attribute: 'bar-id' }) barId = '';
+
+  @state() private preview: BarFile | null = null;
+  @state() private shapeError = '';
+  @state() private lastUpdateMs: number | null = null;
+  @state() private planning: AbortController | null = null;
+  @state() private planProgress = '';
+  @state() private planProblem: Exclude<SolverOutcome<'design'>, { status: 'ok' }> | null = null;
+  @state() private spread = 30;
+  /** Bending modes of the last result that carried mode shapes (kept while dragging). */
+  @state() private shapedModes: ModeResult[] = [];
+  /** The last where-to-cut map (kept while dragging; refreshed when the drag ends). */
+  @state() private cutMap: CutEffectMap | null = null;
+
+  private readonly analysis = new LatestSolveController<'analyze'>(this, quickSolver, (state, givenAt) => this.onAnalysis(state, givenAt));
+  private lastGiven = '';
+
+  private get bar() {
+    return this.project?.bars.find((bar) => bar.id === this.barId) ?? null;
+  }
+
+  /** The shape being solved: the drag preview, or the bar as it is now. */
+  private get shape(): BarFile | null {
+    return this.preview ?? this.bar?.current ?? null;
+  }
+
+  protected override willUpdate(changed: Map<string, unknown>): void {
+    if (changed.has('barId')) {
+      this.preview = null;
+      this.shapedModes = [];
+      this.cutMap = null;
+      this.analysis.reset();
+      this.lastGiven = '';
+      this.shapeError = '';
+    }
+    if (changed.has('project') && !this.planning) this.preview = null;
+    const shape = this.shape;
+    if (shape) {
+      const key = JSON.stringify(shape);
+      if (key !== this.lastGiven) {
+        this.lastGiven = key;
+        this.analysis.give({ kind: 'analyze', bar: shape, modes: this.modeCount(), withShapes: true, withSensitivities: true });
+      }
+    }
+  }
+
+  private modeCount(): number {
+    const bar = this.bar;
+    if (!bar || !this.project) return 3;
+    return Math.max(3, registerOf(this.project, bar).ratios.length);
+  }
+
+  /**
+   * Records how long a shape took to reach the screen as partials: `bw:shape-to-partials` when
+   * the readouts have re-rendered, `bw:shape-to-frame` at the next animation frame.
+   */
+  private onAnalysis(state: LatestSolveState<'analyze'>, givenAt: number): void {
+    if (state.value === null) return;
+    if (state.value.analysis.bending.some((mode) => mode.shape)) this.shapedModes = state.value.analysis.bending;
+    if (state.value.sensitivities) this.cutMap = state.value.sensitivities;
+    void this.updateComplete
+      .then(() => Promise.all([...this.renderRoot.querySelectorAll('bw-cents-readout')].map((readout) => readout.updateComplete)))
+      .then(() => {
+        const end = performance.now();
+        this.lastUpdateMs = end - givenAt;
+        performance.measure('bw:shape-to-partials', { start: givenAt, end });
+        requestAnimationFrame(() => performance.measure('bw:shape-to-frame', { start: givenAt, end: performance.now() }));
+      });
+  }
+
+  /** While dragging: partials only (mode shapes follow when the drag ends). */
+  private onPreview(event: CustomEvent<ProfileChangeDetail>): void {
+    this.preview = event.detail.bar;
+    this.lastGiven = JSON.stringify(event.detail.bar);
+    this.analysis.give({ kind: 'analyze', bar: event.detail.bar, modes: this.modeCount(), withShapes: false, withSensitivities: false }, event.detail.at);
+  }
+
+  private onCommit(event: CustomEvent<ProfileChangeDetail>): void {
+    const outcome = sendEdit(this, (project) => setBarShape(project, this.barId, event.detail.bar, new Date().toISOString()));
+    this.shapeError = outcome.ok ? '' : outcome.error.message;
+    this.preview = null;
+  }
+
+  private addStations(): void {
+    const bar = this.bar;
+    if (!bar) return;
+    const outcome = sendEdit(this, (project) => setBarShape(project, this.barId, withStations(bar.current, 10), new Date().toISOString()));
+    this.shapeError = outcome.ok ? '' : outcome.error.message;
+  }
+
+  private setState(event: Event): void {
+    const value = (event.target as HTMLSelectElement).value as BarState;
+    sendEdit(this, (project) => setBarState(project, this.barId, value, new Date().toISOString()));
+  }
+
+  private async plan(): Promise<void> {
+    const bar = this.bar;
+    const project = this.project;
+    if (!bar || !project) return;
+    const register = registerOf(project, bar);
+    const controller = new AbortController();
+    this.planning = controller;
+    this.planProblem = null;
+    this.planProgress = 'Planning…';
+    const outcome = await longSolver.request(
+      { kind: 'design', bar: bar.current, target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } },
+      { signal: controller.signal, onProgress: (done, total) => (this.planProgress = `Planning… ${done} of at most ${total} solver runs`) },
+    );
+    this.planning = null;
+    this.planProgress = '';
+    if (outcome.status === 'ok') {
+      const result = outcome.value;
+      sendEdit(this, (p) => setDesign(p, this.barId, result, new Date().toISOString()));
+    } else this.planProblem = outcome;
+  }
+
+  private adoptPlan(): void {
+    const outcome = sendEdit(this, (project) => adoptDesign(project, this.barId, new Date().toISOString()));
+    this.shapeError = outcome.ok ? '' : outcome.error.message;
+  }
+
+  private renderPartials() {
+    const project = this.project!;
+    const bar = this.bar!;
+    const register = registerOf(project, bar);
+    const targets = barTargetHz(project, bar);
+    const { value, problem, busy } = this.analysis.state;
+    if (!value && problem) return this.renderProblem(problem, 'Predicted partials');
+    const predicted = value?.analysis.bending.map((mode) => mode.hz) ?? [];
+    const standings = comparePartials(predicted, targets, register.tolerance_cents);
+    return html`<section class="panel" aria-labelledby="predicted-heading">
+      <h3 id="predicted-heading">Predicted partials for this shape</h3>
+      <p class="muted">Target ${formatRatios(register.ratios)} on ${bar.note} at A4 = ${project.instrument.a4_hz} Hz. A prediction: cut less than it suggests and measure.</p>
+      <div class="readouts" data-testid="predicted-partials">
+        ${standings.map(
+          (standing, index) => html`<bw-cents-readout
+            label=${`${partialName(index)} · ratio ${value ? formatNumber(value.analysis.bending[index]?.ratio, 2) : '–'} (target ${register.ratios[index]})`}
+            .cents=${standing.cents}
+            .verdict=${standing.verdict}
+            .hz=${standing.hz}
+            .targetHz=${standing.targetHz}
+            .tolerance=${standing.toleranceCents}
+          ></bw-cents-readout>`,
+        )}
+      </div>
+      <p class="status" aria-live="polite">${busy ? 'Updating…' : this.lastUpdateMs !== null ? 'Up to date.' : ''}${problem ? html` <span class="problem">${this.problemText(problem)}</span>` : nothing}</p>
+      ${value && value.analysis.warnings.length > 0
+        ? html`<div class="problem" role="status"><strong>⚠ Other vibrations close to a partial</strong> (the bar may buzz or beat):
+            <ul class="warnings">
+              ${value.analysis.warnings.map((warning) => html`<li>${warning}</li>`)}
+            </ul></div>`
+        : value
+          ? html`<p class="muted">No twisting or side-to-side vibration lies close to a tuned partial.</p>`
+          : nothing}
+    </section>`;
+  }
+
+  private problemText(problem: Exclude<SolverOutcome<'analyze'>, { status: 'ok' }> | Exclude<SolverOutcome<'design'>, { status: 'ok' }>): string {
+    switch (problem.status) {
+      case 'input-error':
+        return `${problem.field}: ${problem.rule}`;
+      case 'unavailable':
+        return `${problem.what} is not available yet.`;
+      case 'failed':
+        return `The computation failed: ${problem.message}`;
+      case 'cancelled':
+        return 'Cancelled.';
+    }
+  }
+
+  private renderProblem(problem: Exclude<SolverOutcome<'analyze'>, { status: 'ok' }>, title: string) {
+    return html`<section class="panel"><h3>${title}</h3><p class=${problem.status === 'unavailable' ? 'unavailable' : 'problem'}>${this.problemText(problem)}</p></section>`;
+  }
+
+  private renderModes() {
+    const value = this.analysis.state.value;
+    if (!value) return nothing;
+    const nodes = value.analysis.bending[0]?.nodes_mm ?? [];
+    return html`<section class="panel">
+      <h3>How the bar moves</h3>
+      <p class="muted">Cord holes go at the fundamental's nodes: ${nodes.map((x) => `${formatMm(x)} mm`).join(' and ')} from the left end.</p>
+      <bw-mode-chart .modes=${this.shapedModes} length=${this.shape?.length_mm ?? 0}></bw-mode-chart>
+    </section>`;
+  }
+
+  private renderPlan() {
+    const bar = this.bar!;
+    const design = bar.design;
+    return html`<section class="panel" aria-labelledby="plan-heading">
+      <h3 id="plan-heading">Plan the undercut</h3>
+      <p class="muted">Finds an arch that reaches the targets from this blank, removing wood only and keeping at least ${formatMm(bar.session.limits.min_thickness_mm)} mm.</p>
+      <div class="spread">
+        <button class="primary" ?disabled=${this.planning !== null || bar.current.section.shape !== 'rect'} @click=${() => void this.plan()}>Plan the undercut</button>
+        ${this.planning ? html`<progress aria-label="Planning progress"></progress><span role="status">${this.planProgress}</span><button @click=${() => this.planning?.abort()}>Cancel</button>` : nothing}
+      </div>
+      ${this.planProblem ? html`<p class=${this.planProblem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(this.planProblem)}</p>` : nothing}
+      ${design
+        ? html`<p><strong>${design.feasible ? 'A plan reaches the targets.' : 'No plan reaches all targets;'}</strong> ${design.reason ?? ''}</p>
+            <p>Predicted: ${design.cents_error.map((value, index) => html`${partialName(index)} ${formatCents(value)} cents${index < design.cents_error.length - 1 ? ' · ' : ''}`)}</p>
+            <bw-profile-drawing .bar=${design.bar}></bw-profile-drawing>
+            <bw-cautions></bw-cautions>
+            <button @click=${this.adoptPlan}>Use the plan as the present shape</button>`
+        : nothing}
+    </section>`;
+  }
+
+  private renderEngineering() {
+    const { value, workerMs } = this.analysis.state;
+    const shape = this.shape;
+    const material = shape && !('preset' in shape.material) ? shape.material : null;
+    return html`<details class="panel">
+      <summary>Engineering detail</summary>
+      ${value
+        ? html`<p>Beam theory: ${value.analysis.theory}; ${value.analysis.mesh?.elements ?? '–'} finite elements; solver time ${formatNumber(workerMs, 1)} ms; last shape-to-partials update ${formatNumber(this.lastUpdateMs, 1)} ms.</p>
+            ${material ? html`<p>Material model: E = ${formatNumber(material.E_GPa, 2)} GPa, G = ${material.G_GPa !== undefined ? `${formatNumber(material.G_GPa, 3)} GPa` : 'from Poisson’s ratio'}, density ${formatNumber(material.density_kg_m3, 0)} kg/m³ (shear-soft timber lowers the upper partials).</p>` : nothing}
+            <table>
+              <caption class="visually-hidden">Frequencies of each vibration family</caption>
+              <thead><tr><th>Family</th><th class="number">Mode</th><th class="number">Hz</th></tr></thead>
+              <tbody>
+                ${value.analysis.bending.map((mode) => html`<tr><td>vertical bending</td><td class="number">${mode.mode}</td><td class="number">${formatHz(mode.hz)}</td></tr>`)}
+                ${value.analysis.torsion.slice(0, 4).map((mode) => html`<tr><td>torsion (twisting)</td><td class="number">${mode.mode}</td><td class="number">${formatHz(mode.hz)}</td></tr>`)}
+                ${value.analysis.lateral.slice(0, 3).map((mode) => html`<tr><td>lateral (side to side)</td><td class="number">${mode.mode}</td><td class="number">${formatHz(mode.hz)}</td></tr>`)}
+              </tbody>
+            </table>`
+        : html`<p class="muted">No result yet.</p>`}
+    </details>`;
+  }
+
+  protected override render() {
+    const project = this.project;
+    const bar = this.bar;
+    if (!project || !bar) return html`<p>Choose a bar in the keyboard list.</p>`;
+    const value = this.analysis.state.value;
+    const nodes = value?.analysis.bending[0]?.nodes_mm ?? [];
+    const rect = bar.current.section.shape === 'rect';
+    return html`<div class="top">
+        <bw-bar-picker .bars=${project.bars} bar-id=${bar.id}></bw-bar-picker>
+        <div class="state-field">
+          <label for="state">State</label>
+          <select id="state" @change=${this.setState}>
+            ${(['not-started', 'rough', 'tuning', 'done'] as const).map((state) => html`<option value=${state} ?selected=${state === bar.state}>${stateName(state)}</option>`)}
+          </select>
+        </div>
+      </div>
+      <div class="layout">
+        <div class="stack">
+          <section class="panel"><bw-blank-form .blank=${bar.blank} bar-id=${bar.id} ?measured=${bar.session.steps.length > 0}></bw-blank-form></section>
+          <section class="panel notes">
+            <label for="notes">Notes on this bar</label>
+            <textarea id="notes" rows="4" .value=${bar.notes} @change=${(event: Event) => sendEdit(this, (project) => setBarNotes(project, this.barId, (event.target as HTMLTextAreaElement).value, new Date().toISOString()))}></textarea>
+          </section>
+        </div>
+        <div class="stack">
+          <section class="panel" aria-labelledby="profile-heading">
+            <h3 id="profile-heading">${rect ? 'Side profile, undercut below' : 'Side view'}</h3>
+            ${rect && !bar.current.profile_mm
+              ? html`<p>This blank is uncut. <button @click=${this.addStations}>Add stations every 10 mm to shape an undercut</button></p>`
+              : rect
+                ? html`<div class="spread muted">
+                    <span>Drag a station up or down (◀ ▶ ▲ ▼ keys: 0.1 mm, Shift 1 mm).</span>
+                    <label for="spread">Neighbours follow within</label>
+                    <select id="spread" @change=${(event: Event) => (this.spread = Number((event.target as HTMLSelectElement).value))}>
+                      ${[0, 15, 30, 60].map((mm) => html`<option value=${mm} ?selected=${mm === this.spread}>${mm} mm</option>`)}
+                    </select>
+                  </div>`
+                : nothing}
+            <bw-profile-drawing
+              .bar=${bar.current}
+              .nodesMm=${nodes}
+              ?editable=${rect && !!bar.current.profile_mm}
+              min-thickness=${bar.session.limits.min_thickness_mm}
+              spread=${this.spread}
+              @profile-preview=${this.onPreview}
+              @profile-commit=${this.onCommit}
+            ></bw-profile-drawing>
+            ${this.shapeError ? html`<p class="problem" role="alert">${this.shapeError}</p>` : nothing}
+          </section>
+          ${this.renderPartials()}
+          ${rect && bar.current.profile_mm ? html`<bw-cautions></bw-cautions>` : nothing}
+          <section class="panel">
+            <h3>Where to cut</h3>
+            <bw-cut-map .sensitivities=${this.cutMap} ?applicable=${rect} length=${this.shape?.length_mm ?? 0}></bw-cut-map>
+          </section>
+          ${this.renderModes()} ${rect ? this.renderPlan() : nothing} ${this.renderEngineering()}
+        </div>
+      </div>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'bw-shape-view': BwShapeView;
+  }
+}

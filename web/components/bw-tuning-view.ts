@@ -1,0 +1,424 @@
+// The tuning round, all on one screen: strike the bar and read its partials (listening or
+// typing), see each partial's error in large signed cents, get the next cut as a station table
+// and on the drawing (from the session's calibrated model), mark it done, and follow predicted
+// against measured across the rounds.
+import { LitElement, html, css, nothing } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import {
+  barTargetHz,
+  comparePartials,
+  cutInstructions,
+  labelPartials,
+  lastMeasuredHz,
+  markCutDone,
+  recordStep,
+  registerOf,
+  removeLastStep,
+  setAdvice,
+  setMinimumThickness,
+  type CutInstructions,
+  type ProjectBar,
+  type ProjectFile,
+} from '../../src/index.ts';
+import { LatestSolveController } from '../controllers/LatestSolveController.ts';
+import { longSolver, quickSolver, type SolverOutcome } from '../worker/SolverClient.ts';
+import { sharedStyles } from '../styles/sharedStyles.ts';
+import { NavigateEvent, sendEdit } from '../events.ts';
+import { formatCents, formatHz, formatMm, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
+import type { RoundSubmitDetail } from './bw-partial-entry.ts';
+import type { RoundErrors } from './bw-round-chart.ts';
+import type { ValueCommitDetail } from './bw-number-field.ts';
+import './bw-bar-picker.ts';
+import './bw-partial-entry.ts';
+import './bw-cents-readout.ts';
+import './bw-profile-drawing.ts';
+import './bw-station-table.ts';
+import './bw-round-chart.ts';
+import './bw-cautions.ts';
+import './bw-number-field.ts';
+
+/** The listening element, when its module is part of this build. */
+const listenModules = import.meta.glob('./bw-listen.ts');
+
+/** Detail of the listening element's `partials-measured` event. */
+interface PartialsMeasuredDetail {
+  partials: { hz: number; level_db?: number; decay_s?: number }[];
+  source?: string;
+}
+
+/** `<bw-tuning-view .project bar-id>` */
+@customElement('bw-tuning-view')
+export class BwTuningView extends LitElement {
+  static override styles = [
+    sharedStyles,
+    css`
+      :host {
+        display: block;
+      }
+      .top {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.8rem 1.6rem;
+        align-items: end;
+        margin-bottom: 0.8rem;
+      }
+      .target {
+        font-size: 1.05rem;
+      }
+      .target strong {
+        font-size: 1.3rem;
+      }
+      .layout {
+        display: grid;
+        gap: 1rem;
+        grid-template-columns: minmax(0, 1fr);
+      }
+      @media (min-width: 1100px) {
+        .layout {
+          grid-template-columns: minmax(0, 1fr) minmax(0, 1fr);
+        }
+        .wide {
+          grid-column: 1 / -1;
+        }
+      }
+      .readouts {
+        display: grid;
+        grid-template-columns: repeat(auto-fit, minmax(10.5rem, 1fr));
+        gap: 0.6rem;
+      }
+      .stack {
+        display: grid;
+        gap: 1rem;
+        align-content: start;
+      }
+      .advice-status {
+        font-size: 1.25rem;
+        font-weight: 800;
+      }
+      .after {
+        display: grid;
+        grid-template-columns: repeat(auto-fit, minmax(9rem, 1fr));
+        gap: 0.5rem;
+      }
+      .heading-row {
+        display: flex;
+        justify-content: space-between;
+        align-items: start;
+        gap: 0.6rem;
+        flex-wrap: wrap;
+        margin-bottom: 0.4rem;
+      }
+      .listen-slot {
+        margin-bottom: 0.8rem;
+      }
+      table.rounds {
+        width: 100%;
+      }
+      progress {
+        width: 10rem;
+      }
+    `,
+  ];
+
+  @property({ attribute: false }) project: ProjectFile | null = null;
+  @property({ attribute: 'bar-id' }) barId = '';
+
+  @state() private heard: (number | null)[] | null = null;
+  @state() private heardFrom: 'microphone' | 'file' = 'microphone';
+  @state() private roundError = '';
+  @state() private adviceRun: AbortController | null = null;
+  @state() private adviceProblem: Exclude<SolverOutcome<'nextCut'>, { status: 'ok' }> | null = null;
+  @state() private listenReady = false;
+  @state() private actionError = '';
+
+  /** Prediction for the present shape from the starting-guess material (before calibration). */
+  private readonly prediction = new LatestSolveController<'analyze'>(this, quickSolver);
+  private lastShape = '';
+  private adviceKey = '';
+
+  override connectedCallback(): void {
+    super.connectedCallback();
+    const load = listenModules['./bw-listen.ts'];
+    if (load) void load().then(() => (this.listenReady = true)).catch(() => (this.listenReady = false));
+  }
+
+  override disconnectedCallback(): void {
+    super.disconnectedCallback();
+    this.adviceRun?.abort();
+  }
+
+  private get bar(): ProjectBar | null {
+    return this.project?.bars.find((bar) => bar.id === this.barId) ?? null;
+  }
+
+  protected override willUpdate(changed: Map<string, unknown>): void {
+    const bar = this.bar;
+    if (changed.has('barId')) {
+      this.heard = null;
+      this.roundError = '';
+      this.adviceProblem = null;
+      this.adviceRun?.abort();
+      this.prediction.reset();
+      this.lastShape = '';
+    }
+    if (!bar || !this.project) return;
+    const key = JSON.stringify(bar.current);
+    if (key !== this.lastShape) {
+      this.lastShape = key;
+      this.prediction.give({ kind: 'analyze', bar: bar.current, modes: Math.max(3, registerOf(this.project, bar).ratios.length), withShapes: false, withSensitivities: false });
+    }
+    const steps = bar.session.steps.length;
+    const adviceKey = `${bar.id}:${steps}:${key}`;
+    // Advice is for the bar as last measured: once it has been cut again, the next thing is a round.
+    if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
+      this.adviceKey = adviceKey;
+      void this.requestAdvice(bar);
+    }
+  }
+
+  /** True when the bar's shape differs from the one last struck (a cut was made since). */
+  private cutSinceLastRound(bar: ProjectBar): boolean {
+    const last = bar.session.steps[bar.session.steps.length - 1];
+    return last !== undefined && JSON.stringify(last.bar) !== JSON.stringify(bar.current);
+  }
+
+  private async requestAdvice(bar: ProjectBar): Promise<void> {
+    this.adviceRun?.abort();
+    const controller = new AbortController();
+    this.adviceRun = controller;
+    this.adviceProblem = null;
+    const outcome = await longSolver.request({ kind: 'nextCut', session: bar.session }, { signal: controller.signal });
+    if (this.adviceRun !== controller) return;
+    this.adviceRun = null;
+    if (outcome.status === 'ok') {
+      const result = outcome.value;
+      const sent = sendEdit(this, (project) => setAdvice(project, bar.id, result, new Date().toISOString()));
+      if (!sent.ok) this.adviceProblem = { status: 'failed', message: sent.error.message };
+    } else this.adviceProblem = outcome;
+  }
+
+  private expectedHz(): number[] {
+    const bar = this.bar!;
+    return bar.expected_hz ?? this.prediction.state.value?.analysis.bending.map((mode) => mode.hz) ?? barTargetHz(this.project!, bar);
+  }
+
+  /** The modes the listening element labels heard partials against (predicted for this shape). */
+  private expectedModes(): { bending: number[]; other: { family: string; mode: number; hz: number }[] } {
+    const analysis = this.prediction.state.value?.analysis;
+    return {
+      bending: this.expectedHz(),
+      other: analysis ? [...analysis.torsion.map((mode) => ({ family: 'torsion', mode: mode.mode, hz: mode.hz })), ...analysis.lateral.map((mode) => ({ family: 'lateral', mode: mode.mode, hz: mode.hz }))] : [],
+    };
+  }
+
+  /** Fills the partial fields from what was heard: each bending mode's partial, by the library's labelling. */
+  private onHeard(event: CustomEvent<PartialsMeasuredDetail>): void {
+    const detail = event.detail;
+    const heardHz = detail.partials.map((partial) => partial.hz);
+    const count = registerOf(this.project!, this.bar!).ratios.length;
+    const labels = labelPartials(heardHz, this.expectedModes());
+    this.heardFrom = detail.source === 'file' ? 'file' : 'microphone';
+    this.heard = Array.from({ length: count }, (_, index) => {
+      const found = labels.findIndex((label) => label.mode === index + 1);
+      return found >= 0 ? heardHz[found]! : null;
+    });
+  }
+
+  private onRound(event: CustomEvent<RoundSubmitDetail>): void {
+    const bar = this.bar!;
+    const predicted = this.prediction.state.value?.analysis.bending.map((mode) => mode.hz).slice(0, event.detail.hz.length);
+    const options: Parameters<typeof recordStep>[3] = { at: new Date().toISOString(), source: event.detail.source };
+    if (predicted) options.predictedHz = predicted;
+    const outcome = sendEdit(this, (project) => recordStep(project, bar.id, event.detail.hz, options));
+    this.roundError = outcome.ok ? '' : outcome.error.message;
+    if (outcome.ok) this.heard = null;
+  }
+
+  private markDone(): void {
+    const outcome = sendEdit(this, (project) => markCutDone(project, this.barId, new Date().toISOString()));
+    this.actionError = outcome.ok ? '' : outcome.error.message;
+  }
+
+  private undoRound(): void {
+    const outcome = sendEdit(this, (project) => removeLastStep(project, this.barId, new Date().toISOString()));
+    this.actionError = outcome.ok ? '' : outcome.error.message;
+  }
+
+  private setLimit(value: number): void {
+    const outcome = sendEdit(this, (project) => setMinimumThickness(project, this.barId, value, new Date().toISOString()));
+    this.actionError = outcome.ok ? '' : outcome.error.message;
+  }
+
+  private renderLastRound() {
+    const project = this.project!;
+    const bar = this.bar!;
+    const register = registerOf(project, bar);
+    const targets = barTargetHz(project, bar);
+    const measured = lastMeasuredHz(bar);
+    const last = bar.session.steps[bar.session.steps.length - 1];
+    if (!measured) {
+      return html`<section class="panel"><h3>Last round</h3><p class="muted">No round yet. Strike the bar as it is now (uncut blanks too: the first round teaches barwright this piece of wood).</p></section>`;
+    }
+    const standings = comparePartials(measured, targets, register.tolerance_cents);
+    return html`<section class="panel" aria-labelledby="last-heading">
+      <h3 id="last-heading">Last round · ${formatWhen(last?.recorded_at)}${last?.source ? html` <span class="muted">(${last.source})</span>` : nothing}</h3>
+      <div class="readouts" data-testid="last-round">
+        ${standings.map(
+          (standing, index) => html`<bw-cents-readout label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz} .tolerance=${standing.toleranceCents}></bw-cents-readout>`,
+        )}
+      </div>
+    </section>`;
+  }
+
+  private renderAdvice() {
+    const bar = this.bar!;
+    const advice = bar.advice && bar.advice.from_steps === bar.session.steps.length ? bar.advice : null;
+    const project = this.project!;
+    const register = registerOf(project, bar);
+    const targets = barTargetHz(project, bar);
+    if (bar.session.steps.length === 0) return html`<section class="panel"><h3>Next cut</h3><p class="muted">Record a round first: advice is based on what the bar sounds like.</p></section>`;
+    if (bar.state === 'done' && !advice) return html`<section class="panel"><h3>Next cut</h3><p class="advice-status in-tune">● This bar is marked done.</p></section>`;
+    if (this.cutSinceLastRound(bar)) {
+      const expected = bar.expected_hz ? comparePartials(bar.expected_hz, targets, register.tolerance_cents) : null;
+      return html`<section class="panel" aria-labelledby="advice-heading">
+        <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
+        <p class="advice-status" data-testid="strike-now">The bar has been cut since the last round: strike it and record the round.</p>
+        <p class="muted">The next advice is worked out from what it sounds like now.</p>
+        ${expected
+          ? html`<h4>Expected now</h4>
+              <div class="after">
+                ${expected.map((standing, index) => html`<bw-cents-readout compact label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz}></bw-cents-readout>`)}
+              </div>`
+          : nothing}
+        <bw-profile-drawing .bar=${bar.current} .nodesMm=${this.prediction.state.value?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
+      </section>`;
+    }
+    if (!advice) {
+      return html`<section class="panel" aria-labelledby="advice-heading">
+        <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
+        ${this.adviceRun
+          ? html`<div class="row" role="status"><progress aria-label="Working out the next cut"></progress> Working out the next cut… <button @click=${() => this.adviceRun?.abort()}>Cancel</button></div>`
+          : this.adviceProblem
+            ? html`<p class=${this.adviceProblem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(this.adviceProblem)}</p>
+                <p class="muted">You can still record rounds, and enter a cut you made by hand in the <button @click=${() => this.dispatchEvent(new NavigateEvent('shape', bar.id))}>Shape view</button>.</p>
+                ${this.adviceProblem.status !== 'unavailable' ? html`<button @click=${() => void this.requestAdvice(bar)}>Try again</button>` : nothing}`
+            : nothing}
+      </section>`;
+    }
+    const plan: CutInstructions = (advice as { cut?: CutInstructions | null }).cut ?? cutInstructions(bar.current, advice.bar_after);
+    const extras = advice as { cautions?: string[]; warnings?: string[] };
+    const predicted = comparePartials(advice.predicted_hz, targets, register.tolerance_cents);
+    const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
+    return html`<section class="panel" aria-labelledby="advice-heading">
+      <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
+      ${advice.status === 'done'
+        ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p><button class="primary" @click=${this.markDone}>Mark the bar done</button>`
+        : advice.status === 'stuck'
+          ? html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
+          : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
+              ${extras.warnings && extras.warnings.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${extras.warnings.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
+              <bw-cautions></bw-cautions>
+              <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.prediction.state.value?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
+              <bw-station-table .plan=${plan}></bw-station-table>
+              <h4>Expected after this cut</h4>
+              <div class="after">
+                ${predicted.map((standing, index) => html`<bw-cents-readout compact label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz}></bw-cents-readout>`)}
+              </div>
+              <div class="row" style="margin-top: 0.8rem">
+                <button class="primary" @click=${this.markDone} data-testid="mark-cut-done">I made this cut</button>
+                <span class="muted">Then strike the bar and record the next round. Cut less if unsure: the next round corrects it.</span>
+              </div>`}
+      ${calibrated
+        ? html`<details>
+            <summary>What the rounds taught about this blank</summary>
+            <p>Calibrated from ${bar.session.steps.length} round${bar.session.steps.length === 1 ? '' : 's'}: stiffness along the grain ${formatNumber(calibrated.E_GPa, 2)} GPa${calibrated.G_GPa !== undefined ? `, shear stiffness ${formatNumber(calibrated.G_GPa, 3)} GPa` : ''}, density ${formatNumber(calibrated.density_kg_m3, 0)} kg/m³.</p>
+          </details>`
+        : nothing}
+    </section>`;
+  }
+
+  private renderLimit() {
+    const bar = this.bar!;
+    return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field></div>`;
+  }
+
+  private problemText(problem: Exclude<SolverOutcome<'nextCut'>, { status: 'ok' }>): string {
+    switch (problem.status) {
+      case 'input-error':
+        return `${problem.field}: ${problem.rule}`;
+      case 'unavailable':
+        return `${problem.what} is not available yet.`;
+      case 'failed':
+        return `The advice could not be worked out: ${problem.message}`;
+      case 'cancelled':
+        return 'Cancelled.';
+    }
+  }
+
+  private renderHistory() {
+    const project = this.project!;
+    const bar = this.bar!;
+    const register = registerOf(project, bar);
+    const targets = barTargetHz(project, bar);
+    const rounds: RoundErrors[] = bar.session.steps.map((step) => ({
+      measured: comparePartials(step.measured_hz, targets, register.tolerance_cents).map((standing) => (standing.hz === null ? null : standing.cents)),
+      predicted: comparePartials(step.predicted_hz ?? [], targets, register.tolerance_cents).map((standing) => (standing.hz === null ? null : standing.cents)),
+    }));
+    return html`<section class="panel wide" aria-labelledby="history-heading">
+      <h3 id="history-heading">Rounds so far</h3>
+      ${rounds.length === 0
+        ? html`<p class="muted">No rounds yet.</p>`
+        : html`<bw-round-chart .rounds=${rounds}></bw-round-chart>
+            <table class="rounds" data-testid="rounds">
+              <caption class="visually-hidden">Each round's partials</caption>
+              <thead><tr><th scope="col">Round</th><th scope="col">When</th>${targets.map((_, index) => html`<th scope="col" class="number">${partialName(index)} (Hz · cents)</th>`)}</tr></thead>
+              <tbody>
+                ${bar.session.steps.map(
+                  (step, index) => html`<tr>
+                    <td>${index + 1}</td>
+                    <td>${formatWhen(step.recorded_at)}</td>
+                    ${targets.map((_, partial) => html`<td class="number">${formatHz(step.measured_hz[partial])} · ${formatCents(rounds[index]!.measured[partial])}</td>`)}
+                  </tr>`,
+                )}
+              </tbody>
+            </table>
+            <p class="row" style="margin-top: 0.6rem"><button @click=${this.undoRound}>Remove the last round (mistyped)</button></p>`}
+      ${this.actionError ? html`<p class="problem" role="alert">${this.actionError}</p>` : nothing}
+    </section>`;
+  }
+
+  protected override render() {
+    const project = this.project;
+    const bar = this.bar;
+    if (!project || !bar) return html`<p>Choose a bar in the keyboard list.</p>`;
+    const register = registerOf(project, bar);
+    const targets = barTargetHz(project, bar);
+    return html`<div class="top">
+        <bw-bar-picker .bars=${project.bars} bar-id=${bar.id}></bw-bar-picker>
+        <p class="target">Target <strong>${bar.note}</strong> · ${targets.map((hz, index) => html`${index > 0 ? ' · ' : ''}${formatHz(hz)} Hz`)} · ratios ${formatRatios(register.ratios)} · tolerance ±${register.tolerance_cents.join(' / ')} cents</p>
+      </div>
+      <div class="layout">
+        <div class="stack">
+          ${this.renderLastRound()}
+          <section class="panel" aria-labelledby="strike-heading">
+            <h3 id="strike-heading">Strike and read</h3>
+            <div class="listen-slot">
+              ${this.listenReady
+                ? html`<bw-listen .targetHz=${targets} .expected=${this.expectedModes()} .toleranceCents=${register.tolerance_cents} a4-hz=${project.instrument.a4_hz} @partials-measured=${this.onHeard}></bw-listen>`
+                : html`<p class="unavailable">Listening (microphone or recording) is not available yet: type the partials below.</p>`}
+            </div>
+            <bw-partial-entry .count=${register.ratios.length} .targets=${targets} .filled=${this.heard} .filledFrom=${this.heardFrom} @round-submit=${this.onRound}></bw-partial-entry>
+            ${this.roundError ? html`<p class="problem" role="alert">${this.roundError}</p>` : nothing}
+          </section>
+        </div>
+        <div class="stack">${this.renderAdvice()}</div>
+        ${this.renderHistory()}
+      </div>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'bw-tuning-view': BwTuningView;
+  }
+}
