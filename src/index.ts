@@ -15,3 +15,4 @@ export * from './project/sessionFile.ts';
 export * from './project/sessionLogEdits.ts';
 export * from './session/index.ts';
 export * from './project/projectFile.ts';
+export * from './instrument/index.ts';

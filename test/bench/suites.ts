@@ -3,6 +3,7 @@ import { solverSuite } from './suites/solver.ts';
 import { designSuite } from './suites/design.ts';
 import { sessionSuite } from './suites/session.ts';
 import { audioSuite } from './suites/audio.ts';
+import { planSuite } from './suites/plan.ts';
 
 /** Every benchmark suite `npm run bench` runs. Add yours here (one file per suite in suites/). */
-export const suites: BenchSuite[] = [solverSuite, designSuite, sessionSuite, audioSuite];
+export const suites: BenchSuite[] = [solverSuite, designSuite, sessionSuite, audioSuite, planSuite];

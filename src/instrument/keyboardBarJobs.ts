@@ -1,0 +1,63 @@
+import type { CutLimitsInput } from '../design/cutLimits.ts';
+import type { BarFile } from '../project/barFile.ts';
+import type { KeyboardFile } from '../project/keyboardFileTypes.ts';
+import type { ScheduledBlank } from './blankSchedule.ts';
+import type { KeyboardNote } from './keyboardNotes.ts';
+import { stableHash } from './stableHash.ts';
+
+/** One bar to design: plain data (structured-clone safe) so any worker can take it. */
+export interface KeyboardBarJob {
+  /** The note name: the key of the bar in the results. */
+  key: string;
+  /** Fingerprint of every input below: a stored result with another fingerprint is stale. */
+  fingerprint: string;
+  note: string;
+  midi: number;
+  index: number;
+  /** The uniform blank cut to its scheduled length. */
+  blank: BarFile;
+  /** Target fundamental, Hz. */
+  target_hz: number;
+  ratios: number[];
+  tolerance_cents: number[];
+  /** Cutting limits in the designer's input form (mm). */
+  limits: CutLimitsInput;
+  resonator?: { inner_diameter_mm: number; air_temperature_c: number; open_end: 'unflanged' | 'flanged' };
+  /** The blank schedule's flag for this note, carried into the result. */
+  schedule_note?: string;
+}
+
+/**
+ * The design jobs of a keyboard, lowest note first: each note's blank (scheduled length × its
+ * section width × thickness, its material), target, ratios, tolerances, cutting limits (minimum
+ * thickness, slope and tool radius; the uncut ends take the designer's default, a fraction of
+ * each bar's length) and resonator, with a fingerprint of them all for resuming.
+ */
+export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote[], schedule: readonly ScheduledBlank[]): KeyboardBarJob[] {
+  return notes.map((note, i) => {
+    const blank = schedule[i]!;
+    const bar: BarFile = {
+      format: 'barwright.bar',
+      version: 1,
+      label: `${note.name} blank`,
+      length_mm: blank.length_mm,
+      section: { shape: 'rect', width_mm: note.width_mm, thickness_mm: note.thickness_mm },
+      material: { ...note.material },
+    };
+    const limits: CutLimitsInput = { min_thickness_mm: note.min_thickness_mm };
+    if (file.limits.max_slope !== undefined) limits.max_slope = file.limits.max_slope;
+    if (file.limits.min_tool_radius_mm !== undefined) limits.min_tool_radius_mm = file.limits.min_tool_radius_mm;
+    const inputs = {
+      blank: bar,
+      target_hz: note.target_hz,
+      ratios: note.ratios,
+      tolerance_cents: note.tolerance_cents,
+      limits,
+      ...(file.resonators && note.resonator_inner_diameter_mm !== undefined
+        ? { resonator: { inner_diameter_mm: note.resonator_inner_diameter_mm, air_temperature_c: file.resonators.air_temperature_c, open_end: file.resonators.open_end } }
+        : {}),
+      ...(blank.reason ? { schedule_note: blank.reason } : {}),
+    };
+    return { key: note.name, fingerprint: stableHash(inputs), note: note.name, midi: note.midi, index: note.index, ...inputs };
+  });
+}

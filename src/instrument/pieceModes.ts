@@ -1,0 +1,56 @@
+import { assembleBending, bendingRigidModes } from '../fe/assembleBending.ts';
+import type { BeamTheory } from '../fe/beamElementType.ts';
+import { buildMesh } from '../fe/buildMesh.ts';
+import { lowestModes } from '../eigen/lowestModes.ts';
+import type { BarModel } from '../modes/BarModel.ts';
+import { meshDensity } from '../modes/meshDensity.ts';
+import { bendingFieldsAt, zeroCrossings } from '../modes/modeShape.ts';
+import { bendingLine, type BendingSolution } from '../modes/solveBending.ts';
+import { addEndLoad, type EndLoad } from './endLoad.ts';
+
+/** One vertical bending mode of a piece: frequency, ratio to mode 1, node positions (m from x = 0). */
+export interface PieceMode {
+  readonly mode: number;
+  readonly hz: number;
+  readonly ratio: number;
+  readonly nodes: readonly number[];
+}
+
+/** Options of pieceModes. */
+export interface PieceModeOptions {
+  readonly modes?: number;
+  readonly theory?: BeamTheory;
+  /** Rigid masses at the ends (plugs, caps). */
+  readonly endLoads?: readonly EndLoad[];
+  /** Target element count (default: the solver's automatic density for the modes asked). */
+  readonly elements?: number;
+}
+
+/**
+ * The lowest free–free vertical bending modes of a bar, tube or rod, with optional rigid end
+ * loads, through the solver's own pipeline (mesh → Timoshenko or Euler–Bernoulli elements →
+ * banded assembly → shift-invert Lanczos with the rigid modes deflated). Node positions are the
+ * zero crossings of each mode's deflection. Pure; SI in and out.
+ */
+export function pieceModes(model: BarModel, options: PieceModeOptions = {}): PieceMode[] {
+  const modes = Math.max(1, Math.floor(options.modes ?? 4));
+  const theory = options.theory ?? 'timoshenko';
+  const line = bendingLine(model, 'vertical');
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, theory));
+  const system = assembleBending(nodes, line, theory);
+  for (const load of options.endLoads ?? []) addEndLoad(system.mass, load.at === 'start' ? 0 : system.mass.size - 2, load);
+  // Shift near −½ of the Euler–Bernoulli mode-1 eigenvalue of the unloaded piece (lowestModes' advice).
+  const properties = new Float64Array(4);
+  line.law.evaluate(model.profile.thicknesses[0]!, properties);
+  const shift = -0.5 * (4.730041 / model.length) ** 4 * (properties[0]! / properties[2]!);
+  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system) });
+  for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
+  const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
+  const solution: BendingSolution = { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };
+  return Array.from(frequencies, (hz, i) => ({
+    mode: i + 1,
+    hz,
+    ratio: hz / frequencies[0]!,
+    nodes: zeroCrossings(nodes, (x) => bendingFieldsAt(solution, i, x).deflection),
+  }));
+}
