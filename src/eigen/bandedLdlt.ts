@@ -16,7 +16,7 @@ export interface BandedFactor {
 export function bandedLdlt(matrix: BandedMatrix): BandedFactor {
   const { size: n, halfBandwidth: hb } = matrix;
   const width = hb + 1;
-  const data = Float64Array.from(matrix.data);
+  const data = matrix.data.slice();
   const scratch = new Float64Array(width);
   for (let j = 0; j < n; j++) {
     const rowJ = j * width;

@@ -89,7 +89,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
   const rigid: Float64Array[] = [];
   const massRigid: Float64Array[] = [];
   for (const mode of options.rigidModes ?? []) {
-    const v = Float64Array.from(mode);
+    const v = mode.slice();
     for (let pass = 0; pass < 2; pass++) orthogonalise(v, rigid, massRigid);
     const mv = bandedMultiply(mass, v);
     const norm = Math.sqrt(dot(v, mv));
@@ -141,7 +141,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
   const firstCheck = Math.min(maxSteps, wanted + 2);
   for (let j = 0; j < maxSteps; j++) {
     const q = basis[j]!;
-    const w = bandedLdltSolve(factor, Float64Array.from(massBasis[j]!));
+    const w = bandedLdltSolve(factor, massBasis[j]!.slice());
     orthogonalise(w, rigid, massRigid);
     const a = dot(massBasis[j]!, w);
     alpha.push(a);

@@ -9,7 +9,8 @@
  */
 export function tridiagonalEigen(diagonal: ArrayLike<number>, offDiagonal: ArrayLike<number>, lastRowOnly = false): { values: Float64Array; vectors: Float64Array } {
   const n = diagonal.length;
-  const d = Float64Array.from(diagonal as ArrayLike<number>);
+  const d = new Float64Array(n);
+  for (let i = 0; i < n; i++) d[i] = diagonal[i]!;
   const e = new Float64Array(n);
   for (let i = 0; i < n - 1; i++) e[i] = offDiagonal[i]!;
   const rows = lastRowOnly ? 1 : n;
