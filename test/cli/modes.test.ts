@@ -1,22 +1,8 @@
 // The `modes` and `materials` commands against the contract: JSON shape, exit codes, messages.
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
-import type { CommandIo } from '../../src/cli/command.ts';
-import { readFile } from 'node:fs/promises';
+import { captureIo as capture } from './captureIo.ts';
 
-function capture(): CommandIo & { out: string[]; err: string[] } {
-  const out: string[] = [];
-  const err: string[] = [];
-  return {
-    out,
-    err,
-    stdout: (t) => out.push(t),
-    stderr: (t) => err.push(t),
-    readText: (p) => readFile(p, 'utf8'),
-    readBytes: async (p) => new Uint8Array(await readFile(p)),
-    writeFile: async () => undefined,
-  };
-}
 
 describe('barwright modes', () => {
   it('prints one JSON document in the contract shape', async () => {

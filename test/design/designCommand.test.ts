@@ -1,25 +1,9 @@
 // `barwright design` against the contract: JSON shape, written files, exit codes and messages.
-import { readFile } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
-import type { CommandIo } from '../../src/cli/command.ts';
 import { parseBarFile } from '../../src/project/barFile.ts';
+import { captureIo as capture } from '../cli/captureIo.ts';
 
-function capture(): CommandIo & { out: string[]; err: string[]; files: Map<string, string> } {
-  const out: string[] = [];
-  const err: string[] = [];
-  const files = new Map<string, string>();
-  return {
-    out,
-    err,
-    files,
-    stdout: (t) => out.push(t),
-    stderr: (t) => err.push(t),
-    readText: (p) => readFile(p, 'utf8'),
-    readBytes: async (p) => new Uint8Array(await readFile(p)),
-    writeFile: async (p, data) => void files.set(p, typeof data === 'string' ? data : new TextDecoder().decode(data)),
-  };
-}
 
 describe('barwright design', () => {
   it('prints one JSON document with the contract fields, and writes the bar, template and table', async () => {

@@ -1,9 +1,8 @@
 import { readFileSync } from 'node:fs';
-import { mkdtemp, readFile, rm } from 'node:fs/promises';
+import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import type { CommandIo } from '../../src/cli/command.ts';
 import { main } from '../../src/cli/main.ts';
 import { bellBarForNote } from '../../src/instrument/bellBarForNote.ts';
 import { tuneBellBarOvertone } from '../../src/instrument/tuneBellBarOvertone.ts';
@@ -14,24 +13,10 @@ import { cuttingPlan } from '../../src/instrument/cuttingPlan.ts';
 import { nearestInterval } from '../../src/instrument/musicalInterval.ts';
 import { parseChimeSetFile } from '../../src/project/chimeSetFile.ts';
 import { parseRfc4180 } from './rfc4180.ts';
+import { captureIo as capture } from '../cli/captureIo.ts';
 
 const demoPath = 'fixtures/demo.chimes.json';
 
-function capture(): CommandIo & { out: string[]; err: string[]; files: Map<string, string> } {
-  const out: string[] = [];
-  const err: string[] = [];
-  const files = new Map<string, string>();
-  return {
-    out,
-    err,
-    files,
-    stdout: (t) => out.push(t),
-    stderr: (t) => err.push(t),
-    readText: (p) => readFile(p, 'utf8'),
-    readBytes: async (p) => new Uint8Array(await readFile(p)),
-    writeFile: async (p, data) => void files.set(p, String(data)),
-  };
-}
 
 const cents = (a: number, b: number): number => 1200 * Math.log2(a / b);
 

@@ -2,9 +2,9 @@ import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { CommandIo } from '../../src/cli/command.ts';
 import { main } from '../../src/cli/main.ts';
 import { parseRfc4180 } from './rfc4180.ts';
+import { captureIo } from '../cli/captureIo.ts';
 
 // A small keyboard of the demo workshop's top register (fundamental only: quick to plan).
 const smallKeyboard = {
@@ -19,19 +19,7 @@ const smallKeyboard = {
   resonators: { air_temperature_c: 22, open_end: 'unflanged', diameters: [{ from: 'G#6', to: 'C7', inner_diameter_mm: 40 }] },
 };
 
-function capture(): CommandIo & { out: string[]; err: string[] } {
-  const out: string[] = [];
-  const err: string[] = [];
-  return {
-    out,
-    err,
-    stdout: (t) => out.push(t),
-    stderr: (t) => err.push(t),
-    readText: (p) => readFile(p, 'utf8'),
-    readBytes: async (p) => new Uint8Array(await readFile(p)),
-    writeFile: (p, data) => writeFile(p, data),
-  };
-}
+const capture = () => captureIo({ writes: 'disk' });
 
 let dir: string;
 beforeAll(async () => {

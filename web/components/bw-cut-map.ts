@@ -3,7 +3,8 @@
 // library's whereToCutMap. Not shown for tubes and rods, which are not undercut.
 import { LitElement, html, css } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { Chart, seriesStyles } from '../charts/chartSetup.ts';
+import { seriesStyles } from '../charts/chartSetup.ts';
+import { LineChartController } from '../controllers/LineChartController.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { partialName } from '../format.ts';
 import type { CutEffectMap } from '../../src/index.ts';
@@ -29,7 +30,7 @@ export class BwCutMap extends LitElement {
   @property({ type: Boolean }) applicable = true;
   /** Bar length, mm (the x axis ends there). */
   @property({ type: Number, attribute: 'length' }) lengthMm: number | null = null;
-  private chart: Chart | null = null;
+  private readonly lineChart = new LineChartController(this);
 
   protected override render() {
     if (!this.applicable) return html`<p class="muted">Tubes and rods are not undercut: tune them by length.</p>`;
@@ -41,8 +42,7 @@ export class BwCutMap extends LitElement {
   protected override updated(): void {
     const canvas = this.renderRoot.querySelector('canvas');
     if (!canvas || !this.sensitivities) {
-      this.chart?.destroy();
-      this.chart = null;
+      this.lineChart.draw(null, [], {});
       return;
     }
     const map = this.sensitivities;
@@ -60,37 +60,16 @@ export class BwCutMap extends LitElement {
         pointHitRadius: 6,
       };
     });
-    if (this.chart && this.chart.canvas !== canvas) {
-      this.chart.destroy();
-      this.chart = null;
-    }
-    if (!this.chart) {
-      this.chart = new Chart(canvas, {
-        type: 'line',
-        data: { datasets },
-        options: {
-          responsive: true,
-          maintainAspectRatio: false,
-          parsing: false,
-          scales: {
-            x: { type: 'linear', min: 0, max: this.lengthMm || undefined, title: { display: true, text: 'Position from the left end (mm)' } },
-            y: { title: { display: true, text: `Cents per ${map.depth_mm} mm of depth` } },
-          },
-          plugins: { legend: { labels: { usePointStyle: true } } },
-        },
-      });
-    } else {
-      this.chart.data.datasets = datasets;
-      const x = this.chart.options.scales?.['x'];
-      if (x) x.max = this.lengthMm || undefined;
-      this.chart.update();
-    }
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.chart?.destroy();
-    this.chart = null;
+    this.lineChart.draw(canvas, datasets, {
+      responsive: true,
+      maintainAspectRatio: false,
+      parsing: false,
+      scales: {
+        x: { type: 'linear', min: 0, max: this.lengthMm || undefined, title: { display: true, text: 'Position from the left end (mm)' } },
+        y: { title: { display: true, text: `Cents per ${map.depth_mm} mm of depth` } },
+      },
+      plugins: { legend: { labels: { usePointStyle: true } } },
+    });
   }
 }
 

@@ -2,7 +2,8 @@
 // plotted with chart.js. Lines differ by dash and point shape, not only colour.
 import { LitElement, html, css } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { Chart, seriesStyles } from '../charts/chartSetup.ts';
+import { seriesStyles } from '../charts/chartSetup.ts';
+import { LineChartController } from '../controllers/LineChartController.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatHz, formatMm, partialName } from '../format.ts';
 
@@ -33,7 +34,7 @@ export class BwModeChart extends LitElement {
   @property({ attribute: false }) modes: PlottedMode[] = [];
   /** Bar length, mm (the x axis ends there). */
   @property({ type: Number, attribute: 'length' }) lengthMm: number | null = null;
-  private chart: Chart | null = null;
+  private readonly lineChart = new LineChartController(this);
 
   protected override render() {
     const described = this.modes.map((mode) => `${partialName(mode.mode - 1)} (${formatHz(mode.hz)} Hz): nodes at ${mode.nodes_mm.map((x) => formatMm(x)).join(', ')} mm`).join('; ');
@@ -70,33 +71,16 @@ export class BwModeChart extends LitElement {
         },
       ];
     });
-    if (!this.chart) {
-      this.chart = new Chart(canvas, {
-        type: 'line',
-        data: { datasets },
-        options: {
-          responsive: true,
-          maintainAspectRatio: false,
-          parsing: false,
-          scales: {
-            x: { type: 'linear', min: 0, max: this.lengthMm ?? undefined, title: { display: true, text: 'Position from the left end (mm)' } },
-            y: { title: { display: true, text: 'Deflection (scaled)' }, min: -1.1, max: 1.1 },
-          },
-          plugins: { legend: { labels: { usePointStyle: true, filter: (item) => !item.text.startsWith('Nodes') } } },
-        },
-      });
-    } else {
-      this.chart.data.datasets = datasets;
-      const x = this.chart.options.scales?.['x'];
-      if (x) x.max = this.lengthMm ?? undefined;
-      this.chart.update();
-    }
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.chart?.destroy();
-    this.chart = null;
+    this.lineChart.draw(canvas, datasets, {
+      responsive: true,
+      maintainAspectRatio: false,
+      parsing: false,
+      scales: {
+        x: { type: 'linear', min: 0, max: this.lengthMm ?? undefined, title: { display: true, text: 'Position from the left end (mm)' } },
+        y: { title: { display: true, text: 'Deflection (scaled)' }, min: -1.1, max: 1.1 },
+      },
+      plugins: { legend: { labels: { usePointStyle: true, filter: (item) => !item.text.startsWith('Nodes') } } },
+    });
   }
 }
 

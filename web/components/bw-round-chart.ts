@@ -3,7 +3,8 @@
 // chart.js. Zero is the target.
 import { LitElement, html, css } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { Chart, seriesStyles } from '../charts/chartSetup.ts';
+import { seriesStyles } from '../charts/chartSetup.ts';
+import { LineChartController } from '../controllers/LineChartController.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { partialName } from '../format.ts';
 
@@ -33,7 +34,7 @@ export class BwRoundChart extends LitElement {
   /** Show only ±zoomCents around the target (early rounds are often hundreds of cents off). */
   @state() private zoomed = false;
   private readonly zoomCents = 60;
-  private chart: Chart | null = null;
+  private readonly lineChart = new LineChartController(this);
 
   protected override render() {
     return html`<div class="row" style="justify-content: flex-end">
@@ -70,38 +71,16 @@ export class BwRoundChart extends LitElement {
       };
       return [measured, predicted];
     }).flat();
-    if (!this.chart) {
-      this.chart = new Chart(canvas, {
-        type: 'line',
-        data: { datasets },
-        options: {
-          responsive: true,
-          maintainAspectRatio: false,
-          parsing: false,
-          scales: {
-            x: { type: 'linear', title: { display: true, text: 'Round' }, ticks: { stepSize: 1, precision: 0 }, min: 0.5, max: Math.max(1.5, this.rounds.length + 0.5) },
-            y: { title: { display: true, text: 'Cents from target (+ sharp, − flat)' }, min: this.zoomed ? -this.zoomCents : undefined, max: this.zoomed ? this.zoomCents : undefined },
-          },
-          plugins: { legend: { labels: { usePointStyle: true } } },
-        },
-      });
-    } else {
-      this.chart.data.datasets = datasets;
-      const x = this.chart.options.scales?.['x'];
-      if (x) x.max = Math.max(1.5, this.rounds.length + 0.5);
-      const y = this.chart.options.scales?.['y'];
-      if (y) {
-        y.min = this.zoomed ? -this.zoomCents : undefined;
-        y.max = this.zoomed ? this.zoomCents : undefined;
-      }
-      this.chart.update();
-    }
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.chart?.destroy();
-    this.chart = null;
+    this.lineChart.draw(canvas, datasets, {
+      responsive: true,
+      maintainAspectRatio: false,
+      parsing: false,
+      scales: {
+        x: { type: 'linear', title: { display: true, text: 'Round' }, ticks: { stepSize: 1, precision: 0 }, min: 0.5, max: Math.max(1.5, this.rounds.length + 0.5) },
+        y: { title: { display: true, text: 'Cents from target (+ sharp, − flat)' }, min: this.zoomed ? -this.zoomCents : undefined, max: this.zoomed ? this.zoomCents : undefined },
+      },
+      plugins: { legend: { labels: { usePointStyle: true } } },
+    });
   }
 }
 
