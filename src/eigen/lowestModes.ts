@@ -1,6 +1,7 @@
 import { bandedCombine, bandedMultiply, type BandedMatrix } from './BandedMatrix.ts';
-import { bandedLdlt, bandedLdltSolve } from './bandedLdlt.ts';
-import { tridiagonalEigen } from './tridiagonalEigen.ts';
+import { bandedLdlt, bandedLdltInPlace, bandedLdltSolve } from './bandedLdlt.ts';
+import { VectorStore } from './VectorStore.ts';
+import { tridiagonalEigen, tridiagonalEigenvector } from './tridiagonalEigen.ts';
 
 /** Options for lowestModes. */
 export interface LowestModesOptions {
@@ -16,13 +17,15 @@ export interface LowestModesOptions {
    */
   rigidModes?: readonly Float64Array[];
   /**
-   * Also return every eigenpair with λ ≤ upTo, plus the first one above it (so the caller knows
-   * the range is covered): the count grows as needed, in one Lanczos run.
+   * Also return every eigenpair with λ ≤ upTo: the count grows as needed, in one Lanczos run. The
+   * run ends only once the next Ritz value lies beyond upTo by more than its residual bound, so
+   * the range is covered; that next pair is not returned (unless needed to make up `count`).
    */
   upTo?: number;
   /**
-   * Relative residual at which a Ritz pair counts as converged (default 1e-9: eigenvalue error
-   * ≈ residual²/gap, far below 1e-12 relative; vectors to about 1e-9).
+   * Relative residual at which a Ritz pair counts as converged (default 1e-7: eigenvalue error
+   * ≈ residual²·ν/gap, about 1e-14 relative on bar spectra; vectors to about 1e-7, enough for
+   * sensitivities in an optimiser).
    */
   tolerance?: number;
 }
@@ -83,20 +86,24 @@ function orthogonalise(w: Float64Array, basis: readonly Float64Array[], massBasi
  */
 export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: number, options: LowestModesOptions): Eigenpairs {
   const n = stiffness.size;
-  const tolerance = options.tolerance ?? 1e-9;
+  const tolerance = options.tolerance ?? 1e-7;
   const sigma = options.shift;
   // M-orthonormal rigid-body basis (modified Gram–Schmidt in the M inner product).
+  const rigidModes = options.rigidModes ?? [];
+  const rigidStore = new VectorStore(n, Math.max(1, 2 * rigidModes.length));
   const rigid: Float64Array[] = [];
   const massRigid: Float64Array[] = [];
-  for (const mode of options.rigidModes ?? []) {
-    const v = mode.slice();
+  for (const mode of rigidModes) {
+    const v = rigidStore.take();
+    v.set(mode);
     for (let pass = 0; pass < 2; pass++) orthogonalise(v, rigid, massRigid);
-    const mv = bandedMultiply(mass, v);
+    const mv = bandedMultiply(mass, v, rigidStore.take());
     const norm = Math.sqrt(dot(v, mv));
     if (!(norm > 0)) continue;
+    const inverse = 1 / norm;
     for (let i = 0; i < n; i++) {
-      v[i]! /= norm;
-      mv[i]! /= norm;
+      v[i]! *= inverse;
+      mv[i]! *= inverse;
     }
     rigid.push(v);
     massRigid.push(mv);
@@ -106,7 +113,8 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
   let wanted = minimum;
   if (wanted <= 0) return { eigenvalues: new Float64Array(0), vectors: [], steps: 0 };
 
-  const factor = bandedLdlt(sigma === 0 ? stiffness : bandedCombine(stiffness, -sigma, mass));
+  const factor = sigma === 0 ? bandedLdlt(stiffness) : bandedLdltInPlace(bandedCombine(stiffness, -sigma, mass));
+  const store = new VectorStore(n, 32);
   const basis: Float64Array[] = [];
   const massBasis: Float64Array[] = [];
   const alpha: number[] = [];
@@ -115,17 +123,19 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
 
   const newDirection = (seed: number): boolean => {
     for (let attempt = 0; attempt < 5; attempt++) {
-      const v = startVector(n, seed + attempt * 7919);
+      const v = store.take();
+      v.set(startVector(n, seed + attempt * 7919));
       for (let pass = 0; pass < 2; pass++) {
         orthogonalise(v, rigid, massRigid);
         orthogonalise(v, basis, massBasis);
       }
-      const mv = bandedMultiply(mass, v);
+      const mv = bandedMultiply(mass, v, store.take());
       const norm = Math.sqrt(dot(v, mv));
       if (norm > 1e-8) {
+        const inverse = 1 / norm;
         for (let i = 0; i < n; i++) {
-          v[i]! /= norm;
-          mv[i]! /= norm;
+          v[i]! *= inverse;
+          mv[i]! *= inverse;
         }
         basis.push(v);
         massBasis.push(mv);
@@ -137,53 +147,74 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
 
   if (!newDirection(1)) throw new Error('internal: Lanczos could not find a start vector');
   let ritz: { values: Float64Array; vectors: Float64Array } | null = null;
+  let ritzSteps = 0;
   let order: number[] = [];
-  const firstCheck = Math.min(maxSteps, wanted + 2);
+  // Convergence is tested at `nextCheck` steps: first once the Krylov space is twice the set
+  // wanted plus two (shift-invert needs about 2.5 steps per converged pair on bar spectra), then
+  // after as many further steps as pairs were still unconverged (at least two), so the small
+  // tridiagonal eigenproblem stays cheap beside the Lanczos steps themselves.
+  let nextCheck = Math.min(maxSteps, 2 * wanted + 2);
   for (let j = 0; j < maxSteps; j++) {
+    // w and Mw join the basis only if the step continues.
+    const w = store.take();
     const q = basis[j]!;
-    const w = bandedLdltSolve(factor, massBasis[j]!.slice());
-    orthogonalise(w, rigid, massRigid);
+    w.set(massBasis[j]!);
+    bandedLdltSolve(factor, w);
+    // α = (Mq_j)ᵀw (rigid components of w do not change it: q_j is M-orthogonal to them), then
+    // the three-term recurrence w ← w − α q_j − β q_{j−1}, fused with ‖w‖² for the test below.
     const a = dot(massBasis[j]!, w);
     alpha.push(a);
-    for (let i = 0; i < n; i++) w[i]! -= a * q[i]!;
+    let normSquared = 0;
     if (j > 0) {
       const previous = basis[j - 1]!;
       const b = beta[j - 1]!;
-      for (let i = 0; i < n; i++) w[i]! -= b * previous[i]!;
+      for (let i = 0; i < n; i++) {
+        const value = w[i]! - a * q[i]! - b * previous[i]!;
+        w[i] = value;
+        normSquared += value * value;
+      }
+    } else {
+      for (let i = 0; i < n; i++) {
+        const value = w[i]! - a * q[i]!;
+        w[i] = value;
+        normSquared += value * value;
+      }
     }
-    // Full re-orthogonalisation, a second pass only when the first cancelled most of w
-    // (Daniel, Gragg, Kaufman & Stewart, Math. Comp. 30 (1976) 772: "twice is enough").
-    const before = Math.sqrt(dot(w, w));
+    // Full re-orthogonalisation against the rigid modes and the basis, a second pass only when
+    // the first cancelled most of w (Daniel, Gragg, Kaufman & Stewart, Math. Comp. 30 (1976)
+    // 772: "twice is enough").
+    orthogonalise(w, rigid, massRigid);
     orthogonalise(w, basis, massBasis);
-    if (Math.sqrt(dot(w, w)) < 0.7071 * before) {
+    if (dot(w, w) < 0.5 * normSquared) {
       orthogonalise(w, rigid, massRigid);
       orthogonalise(w, basis, massBasis);
     }
-    const mw = bandedMultiply(mass, w);
+    const mw = bandedMultiply(mass, w, store.take());
     const b = Math.sqrt(Math.max(dot(w, mw), 0));
     const steps = j + 1;
     const exhausted = steps >= maxSteps;
-    if ((steps >= firstCheck && (steps - firstCheck) % 2 === 0) || exhausted) {
+    if (steps >= nextCheck || exhausted) {
       ritz = tridiagonalEigen(alpha, beta, true);
+      ritzSteps = steps;
       order = Array.from(ritz.values.keys()).sort((x, y) => ritz!.values[y]! - ritz!.values[x]!);
+      // Residual bound of Ritz pair k (largest first): |ν − θ| ≤ |β_j·s_jk| (Parlett, ch. 13).
+      const residual = (k: number): number => Math.abs(b * ritz!.vectors[order[k]!]!);
+      let covered = true;
       if (options.upTo !== undefined) {
-        // Ritz values ν = 1/(λ − σ), largest first: count those with λ ≤ upTo, plus one.
+        // Ritz values ν = 1/(λ − σ), largest first: count those with λ ≤ upTo; the next one must
+        // stay below the bound in ν even at the far end of its residual interval.
         const bound = 1 / (options.upTo - sigma);
         let below = 0;
         while (below < order.length && ritz.values[order[below]!]! >= bound) below++;
-        wanted = Math.max(minimum, Math.min(below + 1, available));
+        wanted = Math.max(minimum, Math.min(below, available));
+        covered = below >= available || (below < order.length && ritz.values[order[below]!]! + residual(below) < bound);
       }
       if (exhausted) wanted = Math.min(wanted, steps);
       // Ritz pairs are trusted only once the Krylov space is larger than the set wanted.
-      let converged = wanted < steps || exhausted;
-      for (let k = 0; converged && k < wanted; k++) {
-        const index = order[k]!;
-        const lastComponent = ritz.vectors[index]!;
-        if (Math.abs(b * lastComponent) > tolerance * Math.abs(ritz.values[index]!)) {
-          converged = false;
-          break;
-        }
-      }
+      let unconverged = covered ? 0 : 1;
+      for (let k = 0; k < wanted; k++) if (residual(k) > tolerance * Math.abs(ritz.values[order[k]!]!)) unconverged++;
+      const converged = (wanted < steps || exhausted) && unconverged === 0;
+      nextCheck = steps + Math.max(2, unconverged);
       if (converged || exhausted) break;
     }
     if (b <= 1e-12 * Math.abs(a)) {
@@ -193,25 +224,36 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
       continue;
     }
     beta.push(b);
+    const inverse = 1 / b;
     for (let i = 0; i < n; i++) {
-      w[i]! /= b;
-      mw[i]! /= b;
+      w[i]! *= inverse;
+      mw[i]! *= inverse;
     }
     basis.push(w);
     massBasis.push(mw);
   }
   if (!ritz) throw new Error('internal: Lanczos produced no Ritz values');
   const steps = alpha.length;
-  ritz = tridiagonalEigen(alpha, beta.slice(0, steps - 1));
-  order = Array.from(ritz.values.keys()).sort((x, y) => ritz!.values[y]! - ritz!.values[x]!);
+  const offDiagonal = beta.slice(0, steps - 1);
+  // Ritz values ν = 1/(λ − σ), largest first; their vectors in the Krylov basis by inverse
+  // iteration (O(steps) each), or from the full QL when two wanted values nearly coincide.
+  const values = ritzSteps === steps ? ritz.values : tridiagonalEigen(alpha, offDiagonal, true).values;
+  order = Array.from(values.keys()).sort((x, y) => values[y]! - values[x]!);
+  let separated = true;
+  for (let k = 0; k + 1 < Math.min(wanted + 1, steps); k++) {
+    if (values[order[k]!]! - values[order[k + 1]!]! < 1e-8 * Math.abs(values[order[0]!]!)) separated = false;
+  }
+  const full = separated ? null : tridiagonalEigen(alpha, offDiagonal);
   const eigenvalues = new Float64Array(wanted);
   const vectors: Float64Array[] = [];
   for (let k = 0; k < wanted; k++) {
     const index = order[k]!;
-    eigenvalues[k] = sigma + 1 / ritz.values[index]!;
+    const value = full ? full.values[index]! : values[index]!;
+    eigenvalues[k] = sigma + 1 / value;
+    const coefficients = full ? Float64Array.from({ length: steps }, (_, s) => full.vectors[s * steps + index]!) : tridiagonalEigenvector(alpha, offDiagonal, value);
     const x = new Float64Array(n);
     for (let s = 0; s < steps; s++) {
-      const coefficient = ritz.vectors[s * steps + index]!;
+      const coefficient = coefficients[s]!;
       const q = basis[s]!;
       for (let i = 0; i < n; i++) x[i]! += coefficient * q[i]!;
     }

@@ -1,4 +1,4 @@
-import { bandedAddElement, createBandedMatrix, type BandedMatrix } from '../eigen/BandedMatrix.ts';
+import { bandedAddBlock, createBandedMatrix, type BandedMatrix } from '../eigen/BandedMatrix.ts';
 import { beamElement, beamElementScratch } from './beamElement.ts';
 import { elementTypeFor, type BeamElementType, type BeamTheory } from './beamElementType.ts';
 import type { BeamLine } from './BeamLine.ts';
@@ -32,19 +32,21 @@ export function assembleBending(nodes: Float64Array, line: BeamLine, theory: Bea
   const elements = nodes.length - 1;
   const stride = 2 + element.internalDofs;
   const size = elements * stride + 2;
-  const stiffness = createBandedMatrix(size, element.localDofs - 1);
-  const mass = createBandedMatrix(size, element.localDofs - 1);
+  // Envelope: an element's dofs couple only to each other, so row d reaches back to the first
+  // dof of the first element holding d.
+  const firstColumn = new Int32Array(size);
+  for (let e = elements - 1; e >= 0; e--) for (let a = 0; a < element.localDofs; a++) firstColumn[e * stride + a] = e * stride;
+  const stiffness = createBandedMatrix(size, element.localDofs - 1, firstColumn);
+  const mass = createBandedMatrix(size, element.localDofs - 1, firstColumn);
   const thickness = elementThicknesses(nodes, line.profile);
   const n = element.localDofs;
   const ke = new Float64Array(n * n);
   const me = new Float64Array(n * n);
-  const dofs = new Int32Array(n);
   const scratch = beamElementScratch(element);
   for (let e = 0; e < elements; e++) {
     beamElement(element, nodes[e + 1]! - nodes[e]!, thickness.start[e]!, thickness.end[e]!, line.law, ke, me, scratch);
-    for (let a = 0; a < n; a++) dofs[a] = e * stride + a;
-    bandedAddElement(stiffness, dofs, ke);
-    bandedAddElement(mass, dofs, me);
+    bandedAddBlock(stiffness, e * stride, n, ke);
+    bandedAddBlock(mass, e * stride, n, me);
   }
   return { nodes, theory, element, stiffness, mass, thickness };
 }

@@ -1,35 +1,40 @@
-import { bandedAddElement, createBandedMatrix, type BandedMatrix } from '../eigen/BandedMatrix.ts';
+import { bandedAddBlock, createBandedMatrix, type BandedMatrix } from '../eigen/BandedMatrix.ts';
 import type { BeamLine } from './BeamLine.ts';
 import { elementThicknesses } from './elementThicknesses.ts';
-import { torsionElement } from './torsionElement.ts';
+import { torsionElement, torsionElementType, type TorsionElementType } from './torsionElement.ts';
 
-/** Assembled torsion matrices; dof 2e is mesh node e, dof 2e+1 the midpoint of element e. */
+/**
+ * Assembled torsion matrices. With element degree p, dof p·e is mesh node e and dofs p·e + 1 …
+ * p·e + p − 1 are element e's interior points.
+ */
 export interface TorsionSystem {
   readonly nodes: Float64Array;
+  readonly element: TorsionElementType;
   readonly stiffness: BandedMatrix;
   readonly mass: BandedMatrix;
   readonly thickness: { interval: Int32Array; start: Float64Array; end: Float64Array };
 }
 
-/** Assembles St-Venant torsion (quadratic elements, half-bandwidth 2) of a beam line. */
-export function assembleTorsion(nodes: Float64Array, line: BeamLine): TorsionSystem {
+/** Assembles St-Venant torsion of a beam line (half-bandwidth = element degree). */
+export function assembleTorsion(nodes: Float64Array, line: BeamLine, element: TorsionElementType = torsionElementType): TorsionSystem {
   const elements = nodes.length - 1;
-  const size = 2 * elements + 1;
-  const stiffness = createBandedMatrix(size, 2);
-  const mass = createBandedMatrix(size, 2);
+  const degree = element.degree;
+  const n = element.localDofs;
+  const size = degree * elements + 1;
+  // Envelope: row d reaches back to the first dof of the first element holding d.
+  const firstColumn = new Int32Array(size);
+  for (let e = elements - 1; e >= 0; e--) for (let a = 0; a < n; a++) firstColumn[degree * e + a] = degree * e;
+  const stiffness = createBandedMatrix(size, degree, firstColumn);
+  const mass = createBandedMatrix(size, degree, firstColumn);
   const thickness = elementThicknesses(nodes, line.profile);
-  const ke = new Float64Array(9);
-  const me = new Float64Array(9);
-  const dofs = new Int32Array(3);
+  const ke = new Float64Array(n * n);
+  const me = new Float64Array(n * n);
   for (let e = 0; e < elements; e++) {
-    torsionElement(nodes[e + 1]! - nodes[e]!, thickness.start[e]!, thickness.end[e]!, line.law, ke, me);
-    dofs[0] = 2 * e;
-    dofs[1] = 2 * e + 1;
-    dofs[2] = 2 * e + 2;
-    bandedAddElement(stiffness, dofs, ke);
-    bandedAddElement(mass, dofs, me);
+    torsionElement(nodes[e + 1]! - nodes[e]!, thickness.start[e]!, thickness.end[e]!, line.law, ke, me, element);
+    bandedAddBlock(stiffness, degree * e, n, ke);
+    bandedAddBlock(mass, degree * e, n, me);
   }
-  return { nodes, stiffness, mass, thickness };
+  return { nodes, element, stiffness, mass, thickness };
 }
 
 /** The rigid-body mode of free–free torsion: the same twist everywhere. */

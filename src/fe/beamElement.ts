@@ -38,26 +38,52 @@ export function beamElement(
   const timoshenko = type.theory === 'timoshenko';
   const { points, weights } = type.quadrature;
   const { properties, deflection, rotation, curvature, shear } = scratch;
+  const wDofs = type.deflectionDofs;
+  const tDofs = type.rotationDofs;
   stiffness.fill(0);
   mass.fill(0);
+  // Each product only over the dofs where its factors can be non-zero (both index lists are
+  // ascending, so (a, b) with b ≤ a stays in the lower triangle).
   for (let g = 0; g < points.length; g++) {
     const xi = points[g]!;
     law.evaluate(thickness0 + xi * (thickness1 - thickness0), properties);
     type.evaluateAtQuadraturePoint(g, h, deflection, rotation, curvature, shear);
     const weight = weights[g]! * h;
     const bending = weight * properties[0]!;
-    const shearStiffness = timoshenko ? weight * properties[1]! : 0;
     const massPerLength = weight * properties[2]!;
-    const rotary = timoshenko ? weight * properties[3]! : 0;
-    for (let a = 0; a < n; a++) {
+    for (let ia = 0; ia < tDofs.length; ia++) {
+      const a = tDofs[ia]!;
       const ba = bending * curvature[a]!;
-      const sa = shearStiffness * shear[a]!;
+      const row = a * n;
+      for (let ib = 0; ib <= ia; ib++) {
+        const b = tDofs[ib]!;
+        stiffness[row + b]! += ba * curvature[b]!;
+      }
+    }
+    for (let ia = 0; ia < wDofs.length; ia++) {
+      const a = wDofs[ia]!;
       const ma = massPerLength * deflection[a]!;
+      const row = a * n;
+      for (let ib = 0; ib <= ia; ib++) {
+        const b = wDofs[ib]!;
+        mass[row + b]! += ma * deflection[b]!;
+      }
+    }
+    if (!timoshenko) continue;
+    const shearStiffness = weight * properties[1]!;
+    const rotary = weight * properties[3]!;
+    for (let a = 0; a < n; a++) {
+      const sa = shearStiffness * shear[a]!;
+      const row = a * n;
+      for (let b = 0; b <= a; b++) stiffness[row + b]! += sa * shear[b]!;
+    }
+    for (let ia = 0; ia < tDofs.length; ia++) {
+      const a = tDofs[ia]!;
       const ra = rotary * rotation[a]!;
       const row = a * n;
-      for (let b = 0; b <= a; b++) {
-        stiffness[row + b]! += ba * curvature[b]! + sa * shear[b]!;
-        mass[row + b]! += ma * deflection[b]! + ra * rotation[b]!;
+      for (let ib = 0; ib <= ia; ib++) {
+        const b = tDofs[ib]!;
+        mass[row + b]! += ra * rotation[b]!;
       }
     }
   }

@@ -64,7 +64,7 @@ export interface PlannedBarContext {
   notes?: readonly string[];
 }
 
-/** Elements of the check mesh: several times the solver's automatic density (Timoshenko O(h⁶): far below 0.001 cent). */
+/** Elements of the check mesh: several times the solver's automatic density (Timoshenko O(h⁸): far below 0.001 cent). */
 export const checkElements = 160;
 
 /** Thickness difference (mm) below which a station counts as uncut. */

@@ -1,5 +1,5 @@
 import { bendingDofLayout, elementOffset } from '../fe/assembleBending.ts';
-import { quadraticShapeFunctions } from '../fe/torsionElement.ts';
+import { lagrangeBasis } from '../fe/lagrangeBasis.ts';
 import type { BendingSolution } from './solveBending.ts';
 import type { TorsionSolution } from './solveTorsion.ts';
 
@@ -49,21 +49,38 @@ export function bendingFieldsAt(solution: BendingSolution, mode: number, x: numb
   return { deflection, rotation, curvature, shear };
 }
 
-const nq = new Float64Array(3);
-const dq = new Float64Array(3);
+const deflectionScratch = new Float64Array(32);
+const layoutBySystem = new WeakMap<object, { kind: Uint8Array; position: Float64Array }>();
 
-/** Twist ψ and its slope dψ/dx of torsion mode `mode` (0-based) at x (m). */
-export function torsionFieldsAt(solution: TorsionSolution, mode: number, x: number): { twist: number; slope: number } {
-  const nodes = solution.system.nodes;
+/** Deflection w alone of bending mode `mode` (0-based) at x (m): bendingFieldsAt's first field, cheaper. */
+export function bendingDeflectionAt(solution: BendingSolution, mode: number, x: number): number {
+  const { nodes, element } = solution.system;
   const e = elementAt(nodes, x);
   const h = nodes[e + 1]! - nodes[e]!;
-  quadraticShapeFunctions((x - nodes[e]!) / h, nq, dq);
+  element.evaluateDeflection((x - nodes[e]!) / h, h, deflectionScratch);
   const u = solution.vectors[mode]!;
+  const offset = elementOffset(solution.system, e);
+  let deflection = 0;
+  for (let a = 0; a < element.localDofs; a++) deflection += deflectionScratch[a]! * u[offset + a]!;
+  return deflection;
+}
+
+const twistValues = new Float64Array(16);
+const twistSlopes = new Float64Array(16);
+
+/** Twist ψ and its slope dψ/dx of torsion mode `mode` (0-based) at x (m), with the element's own basis. */
+export function torsionFieldsAt(solution: TorsionSolution, mode: number, x: number): { twist: number; slope: number } {
+  const { nodes, element } = solution.system;
+  const e = elementAt(nodes, x);
+  const h = nodes[e + 1]! - nodes[e]!;
+  lagrangeBasis(element.points, (x - nodes[e]!) / h, twistValues, twistSlopes);
+  const u = solution.vectors[mode]!;
+  const offset = element.degree * e;
   let twist = 0;
   let slope = 0;
-  for (let a = 0; a < 3; a++) {
-    twist += nq[a]! * u[2 * e + a]!;
-    slope += (dq[a]! / h) * u[2 * e + a]!;
+  for (let a = 0; a < element.localDofs; a++) {
+    twist += twistValues[a]! * u[offset + a]!;
+    slope += (twistSlopes[a]! / h) * u[offset + a]!;
   }
   return { twist, slope };
 }
@@ -131,10 +148,15 @@ function refineRoot(f: (x: number) => number, a: number, fa: number, b: number, 
  * on the element's own interpolant by zeroCrossings' root finder.
  */
 export function bendingNodePositions(solution: BendingSolution, mode: number): number[] {
-  const { kind, position } = bendingDofLayout(solution.system);
+  let layout = layoutBySystem.get(solution.system);
+  if (!layout) {
+    layout = bendingDofLayout(solution.system);
+    layoutBySystem.set(solution.system, layout);
+  }
+  const { kind, position } = layout;
   const u = solution.vectors[mode]!;
   const length = solution.line.length;
-  const valueAt = (x: number) => bendingFieldsAt(solution, mode, x).deflection;
+  const valueAt = (x: number) => bendingDeflectionAt(solution, mode, x);
   const crossings: number[] = [];
   let previousX = Number.NaN;
   let previousValue = 0;

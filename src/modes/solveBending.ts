@@ -54,13 +54,14 @@ function firstEigenvalueEstimate(line: BeamLine): number {
 
 /**
  * Free–free bending modes of a beam line on a given mesh (pipeline: assemble → solve): the
- * `modes` lowest, and with `upToHz` also every mode up to that frequency plus the next one.
+ * `modes` lowest, and with `upToHz` also every mode up to that frequency. `tolerance` is the
+ * eigensolver's relative residual (default lowestModes' 1e-7).
  */
-export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: BeamTheory, modes: number, upToHz?: number): BendingSolution {
+export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: BeamTheory, modes: number, upToHz?: number, tolerance?: number): BendingSolution {
   const system = assembleBending(nodes, line, theory);
   const shift = -0.1 * firstEigenvalueEstimate(line);
   const upTo = upToHz === undefined ? undefined : (2 * Math.PI * upToHz) ** 2;
-  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system), ...(upTo === undefined ? {} : { upTo }) });
+  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system), ...(upTo === undefined ? {} : { upTo }), ...(tolerance === undefined ? {} : { tolerance }) });
   for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
   const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
   return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };

@@ -12,7 +12,7 @@ export interface TorsionSolution {
   readonly system: TorsionSystem;
   readonly eigenvalues: Float64Array;
   readonly frequencies: Float64Array;
-  /** M-normalised twist vectors (dof 2e node e, 2e+1 midpoint of element e), ψ(0) > 0. */
+  /** M-normalised twist vectors (dof layout of the system, see TorsionSystem), ψ(0) > 0. */
   readonly vectors: Float64Array[];
 }
 
@@ -21,8 +21,11 @@ export function torsionLine(model: BarModel): BeamLine {
   return { length: model.length, profile: model.profile, law: torsionLaw(model.section, model.material) };
 }
 
-/** Free–free torsion modes of a beam line on a given mesh (with `upToHz`, all up to it plus one). */
-export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: number, upToHz?: number): TorsionSolution {
+/**
+ * Free–free torsion modes of a beam line on a given mesh (with `upToHz`, all up to it);
+ * `tolerance` is the eigensolver's relative residual (default lowestModes' 1e-7).
+ */
+export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: number, upToHz?: number, tolerance?: number): TorsionSolution {
   const system = assembleTorsion(nodes, line);
   // Uniform estimate of the first torsion eigenvalue, (π/L)²·GJ/ρI_p, from averaged properties.
   const properties = new Float64Array(2);
@@ -35,7 +38,7 @@ export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: num
   }
   const shift = -0.1 * (Math.PI / line.length) ** 2 * (stiffness / inertia);
   const upTo = upToHz === undefined ? undefined : (2 * Math.PI * upToHz) ** 2;
-  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)], ...(upTo === undefined ? {} : { upTo }) });
+  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)], ...(upTo === undefined ? {} : { upTo }), ...(tolerance === undefined ? {} : { tolerance }) });
   for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
   const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
   return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };

@@ -10,6 +10,8 @@ import {
   rectangleTorsionConstantDerivative,
   timoshenkoLagrangeElement,
   torsionElement,
+  lagrangeTorsionElement,
+  torsionElementType,
   torsionLaw,
   type BeamElementType,
   type Material,
@@ -110,31 +112,45 @@ describe.each(types)('%s element', (_name, type) => {
 });
 
 describe('Timoshenko element has no shear locking', () => {
-  it('gives a cantilever-like bending energy independent of κGA once shear is stiff (p = 3)', () => {
-    // As G → ∞ the element's Rayleigh quotient for a pure-bending field must approach the EB one.
-    const type = timoshenkoLagrangeElement(3);
-    const n = type.localDofs;
-    const stiff = bendingLaw(rect, { ...wood, shearModulus: 1e6 * wood.youngModulus }, 'vertical');
-    const k = new Float64Array(n * n);
-    const m = new Float64Array(n * n);
-    beamElement(type, 0.02, 0.02, 0.02, stiff, k, m);
-    const u = nodalVector(type, 0.02, (x) => x ** 3, (x) => 3 * x * x);
-    // ∫ EI (6x)² dx over [0, h] = 12·EI·h³ (w′ = θ exactly, so no shear energy).
-    const EI = (wood.youngModulus * rect.width * 0.02 ** 3) / 12;
-    expect(quadratic(k, n, u) / (12 * EI * 0.02 ** 3)).toBeCloseTo(1, 9);
-  });
+  for (const p of [3, 4]) {
+    it(`gives a cantilever-like bending energy independent of κGA once shear is stiff (p = ${p})`, () => {
+      // As G → ∞ the element's Rayleigh quotient for a pure-bending field must approach the EB one.
+      const type = timoshenkoLagrangeElement(p);
+      const n = type.localDofs;
+      const stiff = bendingLaw(rect, { ...wood, shearModulus: 1e6 * wood.youngModulus }, 'vertical');
+      const k = new Float64Array(n * n);
+      const m = new Float64Array(n * n);
+      beamElement(type, 0.02, 0.02, 0.02, stiff, k, m);
+      const u = nodalVector(type, 0.02, (x) => x ** 3, (x) => 3 * x * x);
+      // ∫ EI (6x)² dx over [0, h] = 12·EI·h³ (w′ = θ exactly, so no shear energy). Tolerance 5e-9:
+      // the shear terms are ~1e6 times the bending ones and cancel, leaving ~1e6·ε·n² of rounding.
+      const EI = (wood.youngModulus * rect.width * 0.02 ** 3) / 12;
+      expect(quadratic(k, n, u) / (12 * EI * 0.02 ** 3)).toBeCloseTo(1, 8);
+    });
+  }
 });
 
 describe('torsion element', () => {
   const tlaw = torsionLaw(rect, wood);
-  const k = new Float64Array(9);
-  const m = new Float64Array(9);
-  torsionElement(0.01, 0.02, 0.015, tlaw, k, m);
-  it('is symmetric with a zero-energy rigid twist', () => {
-    for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) expect(k[a * 3 + b]).toBe(k[b * 3 + a]);
-    const rowSums = [0, 1, 2].map((a) => k[a * 3]! + k[a * 3 + 1]! + k[a * 3 + 2]!);
-    for (const sum of rowSums) expect(Math.abs(sum)).toBeLessThan(1e-12 * Math.abs(k[0]!));
-  });
+  for (const type of [lagrangeTorsionElement(2), torsionElementType]) {
+    const n = type.localDofs;
+    const k = new Float64Array(n * n);
+    const m = new Float64Array(n * n);
+    torsionElement(0.01, 0.02, 0.015, tlaw, k, m, type);
+    it(`degree ${type.degree}: symmetric, with a zero-energy rigid twist and positive mass`, () => {
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) expect(k[a * n + b]).toBe(k[b * n + a]);
+      for (let a = 0; a < n; a++) {
+        let sum = 0;
+        for (let b = 0; b < n; b++) sum += k[a * n + b]!;
+        expect(Math.abs(sum)).toBeLessThan(1e-12 * Math.abs(k[0]!));
+      }
+      // Rigid twist ψ = 1: kinetic energy ∫ρI_p dx > 0, and the mass matrix is symmetric.
+      let total = 0;
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) total += m[a * n + b]!;
+      expect(total).toBeGreaterThan(0);
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) expect(m[a * n + b]).toBe(m[b * n + a]);
+    });
+  }
 });
 
 describe('section law derivatives match central finite differences (step 1e-7 m; error O(step²) ≈ 1e-9 relative)', () => {

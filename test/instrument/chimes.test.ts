@@ -103,7 +103,7 @@ describe('chime length for a note', () => {
       // The fundamental is the tuned quantity: within 0.001 cent of the target on Huang's equation
       // (search 1e-4 cent; mesh error measured 3e-5 cent).
       expect(Math.abs(cents(reference[0]!, hz)), name).toBeLessThan(0.001);
-      // Partials 1–6 on the automatic mesh: within 0.005 cent (O(h⁶) elements; measured ≤ 5e-4 cent on mode 6).
+      // Partials 1–6 on the automatic mesh: within 0.005 cent (O(h⁸) elements; measured ≤ 5.0e-4 cent on mode 6).
       chime.partials.forEach((p, i) => expect(Math.abs(cents(p.hz, reference[i]!)), `${name} partial ${p.mode}`).toBeLessThan(0.005));
     }
   });

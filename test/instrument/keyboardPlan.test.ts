@@ -51,7 +51,7 @@ describe('the demo keyboard planned end to end (52 bars, A2–C7, A4 = 442 Hz)',
         expect(bar.reason, bar.note).toBeTruthy();
         expect(bar.reason!.length).toBeGreaterThan(10);
       }
-      // The check mesh and the finer one agree to 0.01 cent (Timoshenko O(h⁶) elements, both converged).
+      // The check mesh and the finer one agree to 0.01 cent (Timoshenko O(h⁸) elements, both converged).
       bar.check.hz.forEach((hz, k) => expect(Math.abs(cents(hz, fine.bending[k]!.hz)), `${bar.note} partial ${k + 1}`).toBeLessThan(0.01));
     }
     // The low and middle registers (1:4:10) must mostly come out in tolerance with the advisor's blanks.

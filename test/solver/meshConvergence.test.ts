@@ -42,11 +42,14 @@ function errorsByMode(bar: RectangularBar, theory: BeamTheory, pieces: readonly 
 // Expected rates from the element theory (Strang & Fix, An Analysis of the Finite Element
 // Method, §6.3: eigenvalue error O(h^{2(k+1−m)}) for degree-k elements and an energy with m-th
 // derivatives): Hermite cubics for Euler–Bernoulli (k = 3, m = 2) → 4; the Timoshenko element
-// with θ cubic and w quartic (energy in θ′ and w′ − θ, both of degree 2) → 6. The fitted slope
+// with θ quartic and w quintic (energy in θ′ and w′ − θ, both of degree 3) → 8. The fitted slope
 // over four meshes drifts from the asymptotic rate by the next term of the error expansion,
-// O(h²) relative: bands ±0.25 for EB and ±0.5 for Timoshenko (its meshes are coarser because
-// its errors reach rounding sooner). The meshes were chosen so every error stays above 1e-10.
-const cases: { name: string; bar: RectangularBar; theory: BeamTheory; pieces: number[]; rate: number; band: number; exact: () => number[] }[] = [
+// O(h²) relative: bands ±0.25 for EB and ±0.5 for the uniform Timoshenko bar (its meshes are
+// coarser because its errors reach rounding sooner); ±0.75 for the undercut Timoshenko bar, whose
+// meshes must be coarser still (one to five elements per profile interval: measured slopes
+// 7.4–7.6, still climbing towards 8). Every error stays above `floor`, well clear of the
+// reference's own accuracy (Huang roots ~1e-14, shooting ~4e-12 relative).
+const cases: { name: string; bar: RectangularBar; theory: BeamTheory; pieces: number[]; rate: number; band: number; floor?: number; exact: () => number[] }[] = [
   {
     name: 'uniform bar, Euler–Bernoulli, vs cos βL cosh βL = 1',
     bar: workedExampleBar, theory: 'euler-bernoulli', pieces: [12, 16, 24, 32], rate: 4, band: 0.25,
@@ -54,7 +57,7 @@ const cases: { name: string; bar: RectangularBar; theory: BeamTheory; pieces: nu
   },
   {
     name: 'uniform bar, Timoshenko, vs the Huang equation',
-    bar: workedExampleBar, theory: 'timoshenko', pieces: [8, 10, 12, 16], rate: 6, band: 0.5,
+    bar: workedExampleBar, theory: 'timoshenko', pieces: [6, 8, 10, 12], rate: 8, band: 0.5, floor: 5e-12,
     exact: () => huangFreeFreeFrequencies(uniformBeamOf(workedExampleBar), 4),
   },
   {
@@ -64,17 +67,17 @@ const cases: { name: string; bar: RectangularBar; theory: BeamTheory; pieces: nu
   },
   {
     name: 'practice bar, Timoshenko, vs shooting',
-    bar: practiceBar, theory: 'timoshenko', pieces: [3, 4, 5, 6], rate: 6, band: 0.5,
+    bar: practiceBar, theory: 'timoshenko', pieces: [2, 3, 4, 5], rate: 8, band: 0.75, floor: 5e-11,
     exact: () => shootingFrequencies(practiceBar, 'timoshenko', 4),
   },
 ];
 
 describe('mesh convergence rate of the bending elements', () => {
-  for (const { name, bar, theory, pieces, rate, band, exact } of cases) {
+  for (const { name, bar, theory, pieces, rate, band, floor = 1e-10, exact } of cases) {
     it(`${name}: modes 1–4 converge at rate ${rate} ± ${band}`, () => {
       const errors = errorsByMode(bar, theory, pieces, exact());
       errors.forEach((series) => {
-        for (const error of series) expect(error).toBeGreaterThan(1e-10);
+        for (const error of series) expect(error).toBeGreaterThan(floor);
         expect(Math.abs(fittedRate(pieces, series) - rate)).toBeLessThan(band);
       });
     });

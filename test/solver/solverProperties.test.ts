@@ -81,8 +81,9 @@ describe('solver properties on random bars', () => {
 
   it('a profile and its mirror image have the same frequencies and mirrored nodes', () => {
     // Symmetry of the free–free problem under x → L − x. The mirrored mesh is the mirror of the
-    // mesh (nodes at the mirrored stations), so the match is to rounding: frequencies 1e-9
-    // relative; nodes to 1e-4 mm (the node finder stops at 1e-9 L ≈ 5e-4 µm).
+    // mesh (nodes at the mirrored stations), so frequencies match to 1e-9 relative (eigenvalue
+    // error ≈ residual², analyzeBar's residual 1e-5) and nodes to 1e-3 mm: the mode vectors are
+    // good to about the residual, 1e-5, which moves a node by ≲ 1e-5·L/2π ≈ 0.7 µm on a 0.4 m bar.
     fc.assert(
       fc.property(barFiles, theories, (bar, theory) => {
         const mirrored: BarFile = { ...bar, profile_mm: [...bar.profile_mm!].reverse().map(([x, t]) => [bar.length_mm - x, t]) };
@@ -96,7 +97,7 @@ describe('solver properties on random bars', () => {
           expect(nodes).toHaveLength(i + 2);
           const reflected = (other.nodes_mm ?? []).map((x) => bar.length_mm - x).reverse();
           expect(reflected).toHaveLength(nodes.length);
-          nodes.forEach((x, j) => expect(Math.abs(x - reflected[j]!)).toBeLessThan(1e-4));
+          nodes.forEach((x, j) => expect(Math.abs(x - reflected[j]!)).toBeLessThan(1e-3));
         });
       }),
       { numRuns: 15 },

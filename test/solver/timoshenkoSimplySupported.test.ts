@@ -37,8 +37,8 @@ describe('Timoshenko element, simply supported uniform beam', () => {
     it(`matches the closed form for L/h = ${slenderness}, E/G = ${modulusRatio}, modes 1–4`, () => {
       // Source: the simply supported closed form (κGA k² − ω²ρA)(EI k² + κGA − ω²ρI) − (κGA k)² = 0,
       // lower root (reference-values.md; test/reference/simplySupportedTimoshenko.ts).
-      // Tolerance 1e-7 relative: the O(h⁶) element is measured at ≤ 8.7e-8 on 24 elements, so
-      // ≈ 1.6e-8 on the 32 used here (see meshConvergence.test.ts for the rate); 1e-7 is far
+      // Tolerance 1e-7 relative: the O(h⁸) element is measured at ≤ 2.3e-11 on the 32 elements
+      // used here (see meshConvergence.test.ts for the rate); 1e-7 is far
       // below the shear effect tested (0.7 % to 50 % of the frequency, see the last assertion).
       const thickness = 0.02;
       const bar = uniformBar(slenderness * thickness, 0.05, thickness, 15e9, 15e9 / modulusRatio, 900);
