@@ -1,6 +1,7 @@
 import { decodeWav } from './decodeWav.ts';
 import { findPartials, type PartialAnalysis, type PartialOptions } from './findPartials.ts';
 import { labelPartials, type ExpectedModes, type LabelTolerances } from './labelPartials.ts';
+import { roundDecimals as round } from '../project/roundDecimals.ts';
 
 /** One partial as `barwright tap --json` prints it (contract field names, rounded). */
 export interface TapPartial {
@@ -29,10 +30,6 @@ export interface TapReport {
   partials: TapPartial[];
 }
 
-function round(value: number, decimals: number): number {
-  const factor = 10 ** decimals;
-  return Math.round(value * factor) / factor;
-}
 
 /**
  * Shapes a partial analysis as the tap report: contract field names, rounded for display

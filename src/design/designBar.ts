@@ -13,6 +13,7 @@ import { designShape, shapeFamilies, type ShapeOutcome } from './designShape.ts'
 import { resolveDesignTarget, type DesignTarget, type DesignTargetInput } from './designTarget.ts';
 import { bindingLimits, shortfallReason, type BindingLimit, type RatioProbe } from './explainDesign.ts';
 import type { SolveBudget } from './fitShape.ts';
+import { roundDecimals as round } from '../project/roundDecimals.ts';
 
 /** What to design: the target, the workshop limits (mm) and solver choices. */
 export interface DesignRequest {
@@ -77,10 +78,6 @@ export interface DesignResult {
 }
 
 const mm = 1e-3;
-const round = (value: number, decimals: number): number => {
-  const scale = 10 ** decimals;
-  return Math.round(value * scale) / scale;
-};
 
 /** Finite-element solves a design may use by default. */
 export const defaultMaxSolves = 600;

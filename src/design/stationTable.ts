@@ -1,6 +1,7 @@
 import type { BarFile } from '../project/barFile.ts';
 import { InputError } from '../project/InputError.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
+import { roundDecimals as round } from '../project/roundDecimals.ts';
 
 /** One row of the maker's thickness table (mm). */
 export interface StationRow {
@@ -33,14 +34,13 @@ export function stationTable(bar: BarFile, step_mm = 5, source = 'table'): Stati
     offsets.add(k * step_mm);
     offsets.add(-k * step_mm);
   }
-  const round = (v: number, d: number): number => Math.round(v * 10 ** d) / 10 ** d;
   return [...offsets]
     .filter((o) => Math.abs(o) <= centre + 1e-9)
     .sort((a, b) => a - b)
     .map((offset) => {
       const x = Math.min(bar.length_mm, Math.max(0, centre + offset));
       const thickness = thicknessAt(profile, x);
-      return { from_left_mm: round(x, 2), from_centre_mm: round(offset, 2) + 0, thickness_mm: round(thickness, 2), depth_mm: round(blank - thickness, 2) + 0 };
+      return { from_left_mm: round(x, 2), from_centre_mm: round(offset, 2), thickness_mm: round(thickness, 2), depth_mm: round(blank - thickness, 2) };
     });
 }
 

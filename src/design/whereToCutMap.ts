@@ -5,6 +5,7 @@ import { bendingSensitivityDensity } from '../modes/bendingSensitivities.ts';
 import { solveBending } from '../modes/solveBending.ts';
 import type { BarFile } from '../project/barFile.ts';
 import { InputError } from '../project/InputError.ts';
+import { roundDecimals } from '../project/roundDecimals.ts';
 
 /** Options of whereToCutMap (mm at the edge). */
 export interface CutEffectOptions {
@@ -78,9 +79,9 @@ export function whereToCutMap(bar: BarFile, options: CutEffectOptions = {}, sour
         stripRule.points.forEach((xi, g) => (integral += stripRule.weights[g]! * span * bendingSensitivityDensity(solution, mode, start + xi * span)));
       }
       const change = -depth * 1e-3 * integral;
-      return Math.round(((1200 / Math.LN2) * change) / (2 * lambda) * 1000) / 1000;
+      return roundDecimals(((1200 / Math.LN2) * change) / (2 * lambda), 3);
     });
-    result.push({ partial: mode + 1, hz: Math.round(solution.frequencies[mode]! * 1000) / 1000, cents });
+    result.push({ partial: mode + 1, hz: roundDecimals(solution.frequencies[mode]!, 3), cents });
   }
-  return { positions_mm: positions.map((p) => Math.round(p * 1000) / 1000), depth_mm: depth, strip_mm: strip, partials: result };
+  return { positions_mm: positions.map((p) => roundDecimals(p, 3)), depth_mm: depth, strip_mm: strip, partials: result };
 }

@@ -1,4 +1,5 @@
 import type { BarFile } from '../project/barFile.ts';
+import { roundDecimals as round } from '../project/roundDecimals.ts';
 
 /** Thickness (mm) of a bar file at a position (mm): its profile interpolated, or the blank's; 0 off the bar. */
 function thicknessAtMm(bar: BarFile, position: number): number {
@@ -44,10 +45,6 @@ export const smallestListedDepthMm = 0.01;
 const sketchColumns = 64;
 const sketchRows = 6;
 
-function round(value: number, decimals: number): number {
-  const scale = 10 ** decimals;
-  return Math.round(value * scale) / scale;
-}
 
 /**
  * The cut from `now` to `after` (bar files, mm, same stations or not) as a table of stations with

@@ -7,13 +7,10 @@ import { endCorrectionFactors, type OpenEnd } from '../../resonator/endCorrectio
 import { tubeListCsv, tubeSet, type TubeRow } from '../../resonator/tubeListCsv.ts';
 import type { AirConditions } from '../../resonator/speedOfSound.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
+import { roundDecimals as round } from '../../project/roundDecimals.ts';
 
 const source = 'command line';
 
-function round(value: number, decimals: number): number {
-  const factor = 10 ** decimals;
-  return Math.round(value * factor) / factor;
-}
 
 /** Parses "1:4:10" into ratios, each ≥ 1 and the first exactly 1. */
 function parseRatios(text: string): number[] {
