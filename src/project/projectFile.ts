@@ -12,6 +12,8 @@ export { migrateProjectFile } from './projectFileMigrations.ts';
 export { formatFieldPath } from './projectFileIssues.ts';
 export * from './projectFileEdits.ts';
 export * from './projectFileTargets.ts';
+export * from './projectKeyboardFile.ts';
+export * from './projectKeyboardPlan.ts';
 
 /** Outcome of checking a project file: the project, or every problem found. */
 export type ProjectFileCheck = { ok: true; project: ProjectFile } | { ok: false; errors: InputError[] };

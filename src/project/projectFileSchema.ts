@@ -6,6 +6,7 @@ import { findMaterialPreset } from '../material/materialPresets.ts';
 import { parseBarFile } from './barFile.ts';
 import { parseSessionFile } from './sessionFile.ts';
 import { isInputError } from './InputError.ts';
+import { keyboardPlanRecordSchema } from './projectKeyboardPlan.ts';
 
 /** A finite number > 0 with a unit in the rule. */
 function positive(unit: string) {
@@ -161,6 +162,7 @@ export const projectFileSchema = z
       resonator_end: z.enum(['unflanged', 'flanged'], { error: 'must be "unflanged" or "flanged"' }),
     }),
     bars: z.array(barSchema, { error: 'must be a list of bars' }),
+    keyboard_plan: keyboardPlanRecordSchema.optional(),
   })
   .superRefine((project, context) => {
     const registerIds = new Set<string>();

@@ -4,6 +4,7 @@
 // the contract's bar-file and session-file shapes so each can be exported to the CLI as is.
 
 import type { BarFile, BarFileMaterial } from './barFile.ts';
+import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
 export interface SessionTarget {
@@ -119,6 +120,8 @@ export interface ProjectFile {
   saved_at: string | null;
   instrument: Instrument;
   bars: ProjectBar[];
+  /** The whole-keyboard plan made in the workbench, with the keyboard file it came from (optional). */
+  keyboard_plan?: KeyboardPlanRecord;
 }
 
 /** Current version of the project file format. */

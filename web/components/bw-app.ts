@@ -16,6 +16,8 @@ import './bw-shape-view.ts';
 import './bw-tuning-view.ts';
 import './bw-resonator-view.ts';
 import './bw-template-view.ts';
+import './bw-chime-view.ts';
+import './bw-plan-print-view.ts';
 
 /** Loads the demo project of the invented workshop (bundled with the app). */
 async function loadDemo(): Promise<unknown> {
@@ -23,12 +25,14 @@ async function loadDemo(): Promise<unknown> {
   return structuredClone(module.default);
 }
 
-const views: { name: ViewName; label: string; needsBar: boolean }[] = [
+const views: { name: ViewName; label: string; needsBar: boolean; inNav?: false }[] = [
   { name: 'keyboard', label: 'Keyboard', needsBar: false },
   { name: 'shape', label: 'Shape', needsBar: true },
   { name: 'tuning', label: 'Tuning', needsBar: true },
   { name: 'resonators', label: 'Resonators', needsBar: false },
   { name: 'template', label: 'Print', needsBar: true },
+  { name: 'chimes', label: 'Chime set', needsBar: false },
+  { name: 'plan-print', label: 'Templates of the plan', needsBar: false, inNav: false },
 ];
 
 /** Reads `#/view/barId` from the address. */
@@ -238,6 +242,10 @@ export class BwApp extends LitElement {
         return html`<bw-resonator-view .project=${project}></bw-resonator-view>`;
       case 'template':
         return html`<bw-template-view .project=${project} bar-id=${barId}></bw-template-view>`;
+      case 'chimes':
+        return html`<bw-chime-view></bw-chime-view>`;
+      case 'plan-print':
+        return html`<bw-plan-print-view .project=${project}></bw-plan-print-view>`;
     }
   }
 
@@ -263,7 +271,7 @@ export class BwApp extends LitElement {
           ></bw-project-menu>
         </div>
         <nav aria-label="Views">
-          ${views.map(
+          ${views.filter((view) => view.inNav !== false).map(
             (view) => html`<button aria-current=${this.route.view === view.name ? 'page' : 'false'} @click=${() => this.navigate(view.name, view.needsBar ? barId : this.route.barId)}>
               ${view.label}${view.needsBar && bar ? html`&nbsp;<span aria-hidden="true">·</span>&nbsp;${bar.note}` : nothing}
             </button>`,

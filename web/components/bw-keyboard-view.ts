@@ -4,7 +4,7 @@
 // progress and cancel).
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { barTargetHz, checkA4, comparePartials, lastMeasuredHz, parseRatioText, parseToleranceText, registerOf, updateInstrument, updateRegister, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
+import { barTargetHz, checkA4, parseNote, comparePartials, lastMeasuredHz, parseRatioText, parseToleranceText, registerOf, updateInstrument, updateRegister, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
 import { longSolver } from '../worker/SolverClient.ts';
 import type { SolverResults } from '../worker/protocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
@@ -12,6 +12,7 @@ import { NavigateEvent, sendEdit } from '../events.ts';
 import { formatCents, formatMm, formatRatios, formatWhen, partialName, stateName, verdictClass, verdictMark } from '../format.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
 import './bw-number-field.ts';
+import './bw-keyboard-plan.ts';
 
 const stateMarks: Record<ProjectBar['state'], string> = { 'not-started': '○', rough: '◔', tuning: '◑', done: '✔' };
 
@@ -170,6 +171,19 @@ export class BwKeyboardView extends LitElement {
       )}<span class="source">${when}</span>`;
   }
 
+  /** The bar's planned undercut in words: in tolerance, out of tolerance, or cannot be made (with the reason on hover). */
+  private planText(bar: ProjectBar) {
+    const design = bar.design;
+    if (!design) return html`<span class="muted">–</span>`;
+    const midi = parseNote(bar.note).midi;
+    const planned = Object.values(this.project!.keyboard_plan?.plan.bars ?? {}).find((entry) => entry.midi === midi && registerOf(this.project!, bar).family === 'keyboard');
+    const tolerance = registerOf(this.project!, bar).tolerance_cents;
+    const within = design.cents_error.every((c, k) => Math.abs(c) <= (tolerance[k] ?? tolerance[tolerance.length - 1] ?? 0));
+    const status = planned?.status ?? (design.feasible ? 'in-tolerance' : within ? 'infeasible' : 'out-of-tolerance');
+    const [mark, words] = status === 'infeasible' ? ['✕', 'cannot be made'] : status === 'in-tolerance' ? ['✔', 'in tolerance'] : ['!', 'out of tolerance'];
+    return html`<span class="state" data-plan-status=${status} title=${design.reason ?? ''}>${mark} ${words}</span>`;
+  }
+
   private blankText(bar: ProjectBar): string {
     const section = bar.blank.section;
     if (section.shape === 'rect') return `${formatMm(bar.blank.length_mm, 0)} × ${formatMm(section.width_mm, 0)} × ${formatMm(section.thickness_mm, 0)}`;
@@ -215,6 +229,7 @@ export class BwKeyboardView extends LitElement {
           </table>
         </div>
       </section>
+      <bw-keyboard-plan .project=${project}></bw-keyboard-plan>
       <section class="panel" aria-labelledby="bars-heading">
         <div class="row" style="justify-content: space-between">
           <h2 id="bars-heading">Bars</h2>
@@ -228,7 +243,7 @@ export class BwKeyboardView extends LitElement {
         <div class="table-wrap">
           <table class="bars" data-testid="bar-list">
             <thead>
-              <tr><th scope="col">Note</th><th scope="col">State</th><th scope="col">Blank (mm)</th><th scope="col">Partials (cents)</th><th scope="col" class="number">Rounds</th><th scope="col">Open</th></tr>
+              <tr><th scope="col">Note</th><th scope="col">State</th><th scope="col">Blank (mm)</th><th scope="col">Partials (cents)</th><th scope="col">Plan</th><th scope="col" class="number">Rounds</th><th scope="col">Open</th></tr>
             </thead>
             <tbody>
               ${project.bars.map(
@@ -237,6 +252,7 @@ export class BwKeyboardView extends LitElement {
                   <td class="state">${stateMarks[bar.state]} ${stateName(bar.state)}</td>
                   <td>${this.blankText(bar)}</td>
                   <td>${this.renderErrors(bar)}</td>
+                  <td>${this.planText(bar)}</td>
                   <td class="number">${bar.session.steps.length}</td>
                   <td class="actions"><div>
                     <button @click=${() => this.go('shape', bar.id)} aria-label=${`Shape of ${bar.note}`}>Shape</button>

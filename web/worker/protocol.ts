@@ -2,7 +2,7 @@
 // an id; the worker answers with progress messages (long jobs) and exactly one final message:
 // a result, an input error (field and rule, shown next to the field), "unavailable" when a
 // computation is not offered, "failed" for an internal error, or "cancelled".
-import type { BarAnalysis, BarFile, CutEffectMap, DesignResult, NextCutResult, ResonatorResult, SessionFile } from '../../src/index.ts';
+import type { BarAnalysis, BarFile, ChimeSetPlan, CutEffectMap, DesignResult, NextCutResult, ResonatorResult, SessionFile } from '../../src/index.ts';
 
 /** Analyse one bar: its modes, optionally shapes and the where-to-cut map. */
 export interface AnalyzeRequest {
@@ -44,8 +44,15 @@ export interface ResonatorRequest {
   end: 'unflanged' | 'flanged';
 }
 
+/** A chime set as the maker entered it (a chime-set file's fields, checked in the worker). */
+export interface ChimeSetRequest {
+  kind: 'chimeSet';
+  /** The chime-set file value (format "barwright.chime-set"), not yet validated. */
+  file: unknown;
+}
+
 /** Any request the page can send. */
-export type SolverRequest = AnalyzeRequest | AnalyzeManyRequest | DesignRequest | NextCutRequest | ResonatorRequest;
+export type SolverRequest = AnalyzeRequest | AnalyzeManyRequest | DesignRequest | NextCutRequest | ResonatorRequest | ChimeSetRequest;
 
 /** What each request kind answers with. */
 export interface SolverResults {
@@ -54,6 +61,7 @@ export interface SolverResults {
   design: DesignResult;
   nextCut: NextCutResult;
   resonators: (ResonatorResult & { id: string })[];
+  chimeSet: { plan: ChimeSetPlan; csv: string };
 }
 
 /** Page → worker. */

@@ -1,7 +1,7 @@
 // The computations behind each worker request: thin calls into the library's public surface.
 // Bad input raises the library's InputError, which the worker forwards with its field and rule.
-import type { AnalyzeManyRequest, AnalyzeRequest, DesignRequest, NextCutRequest, ResonatorRequest, SolverResults } from './protocol.ts';
-import { analyzeBar, closedTubeResonator, designBar, nextCut, whereToCutMap, type CutEffectMap, type DesignResult, type NextCutResult } from '../../src/index.ts';
+import type { AnalyzeManyRequest, AnalyzeRequest, ChimeSetRequest, DesignRequest, NextCutRequest, ResonatorRequest, SolverResults } from './protocol.ts';
+import { analyzeBar, chimeCutListCsv, closedTubeResonator, designBar, nextCut, parseChimeSetFile, planChimeSet, whereToCutMap, type CutEffectMap, type DesignResult, type NextCutResult } from '../../src/index.ts';
 
 /** Raised inside a batch when the page cancelled it. */
 export class Cancelled extends Error {
@@ -48,4 +48,10 @@ export function runNextCut(request: NextCutRequest, progress: (done: number, tot
 /** Resonator tubes for a set of fundamentals. */
 export function runResonators(request: ResonatorRequest): SolverResults['resonators'] {
   return request.rows.map((row) => ({ id: row.id, ...closedTubeResonator({ hz: row.hz, innerDiameterMm: row.innerDiameterMm, temperatureC: request.temperatureC, end: request.end }) }));
+}
+
+/** A chime set: validated as a chime-set file (InputError names the field), planned, and its cut list. */
+export function runChimeSet(request: ChimeSetRequest): SolverResults['chimeSet'] {
+  const plan = planChimeSet(parseChimeSetFile(request.file, 'chime set'));
+  return { plan, csv: chimeCutListCsv(plan) };
 }

@@ -2,7 +2,7 @@
 // library off the main thread, reports progress for batches and honours cancel between items.
 import { isInputError } from '../../src/index.ts';
 import type { FromWorker, SolverRequest, ToWorker } from './protocol.ts';
-import { Cancelled, runAnalyze, runAnalyzeMany, runDesign, runNextCut, runResonators } from './solverJobs.ts';
+import { Cancelled, runAnalyze, runAnalyzeMany, runChimeSet, runDesign, runNextCut, runResonators } from './solverJobs.ts';
 
 const cancelled = new Set<number>();
 
@@ -31,6 +31,8 @@ async function run(id: number, request: SolverRequest): Promise<unknown> {
       return runNextCut(request, (done, total) => post({ type: 'progress', id, done, total }));
     case 'resonators':
       return runResonators(request);
+    case 'chimeSet':
+      return runChimeSet(request);
   }
 }
 

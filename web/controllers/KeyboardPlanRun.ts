@@ -1,0 +1,158 @@
+// The whole-keyboard plan as the workbench runs it: planKeyboard on a pool of web workers, with
+// progress, cancel and resume from the plan stored in the project, and the result stored in the
+// project through the app shell's keeper. One run at a time for the page; it carries on while
+// the maker looks at other views, and any view can show its progress.
+import type { ReactiveController, ReactiveControllerHost } from 'lit';
+import { isInputError, keyboardFileFromProject, planKeyboard, storePlanInProject, withKeyboardPlan, type KeyboardFile, type KeyboardPlan, type PlanProgress, type ProjectFile, type ProjectPlanChoice } from '../../src/index.ts';
+import { KeyboardWorkerPool, planWorkerCount } from '../worker/KeyboardWorkerPool.ts';
+import { sendEdit, type EditOutcome } from '../events.ts';
+
+/** Where a run stands, for the views. */
+export interface PlanRunState {
+  running: boolean;
+  /** Cancel was pressed: the tasks in progress finish, then what is done is stored. */
+  stopping: boolean;
+  progress: PlanProgress | null;
+  /** Bars taken over from the stored plan when the design step started (resume). */
+  kept: number | null;
+  /** Workers in the pool of the run in progress (or the last). */
+  workers: number;
+  /** The last run's outcome, one calm line. */
+  message: string;
+  /** A rule the maker's choice broke (field and rule), or an internal failure (field ''). */
+  problem: { field: string; rule: string } | null;
+}
+
+/** Options of a run. */
+export interface PlanRunOptions {
+  /** Ignore the stored plan and start over. */
+  fresh?: boolean;
+  /** Applies an edit to the open project (the app shell's keeper); returns its outcome. */
+  apply: (change: (project: ProjectFile) => ProjectFile) => EditOutcome;
+}
+
+/** Runs keyboard plans for the page and tells its subscribers. */
+export class KeyboardPlanRun {
+  state: PlanRunState = { running: false, stopping: false, progress: null, kept: null, workers: planWorkerCount(), message: '', problem: null };
+  private readonly listeners = new Set<(state: PlanRunState) => void>();
+  private controller: AbortController | null = null;
+
+  /** Calls `listener` on every change; returns an unsubscribe function. */
+  subscribe(listener: (state: PlanRunState) => void): () => void {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  }
+
+  private set(change: Partial<PlanRunState>): void {
+    this.state = { ...this.state, ...change };
+    for (const listener of this.listeners) listener(this.state);
+  }
+
+  /** Stops the run after the tasks in progress; what is done is stored. */
+  cancel(): void {
+    if (!this.controller || this.controller.signal.aborted) return;
+    this.controller.abort();
+    this.set({ stopping: true });
+  }
+
+  /**
+   * Plans the chosen notes of the project: derives the keyboard file, resumes from the stored
+   * plan (unless `fresh`), runs on the worker pool and stores the plan (complete or cut short)
+   * with every designed bar's plan on the project's matching bar. A choice that breaks a rule is
+   * reported with its field and nothing runs.
+   */
+  async start(project: ProjectFile, choice: ProjectPlanChoice, options: PlanRunOptions): Promise<void> {
+    if (this.state.running) return;
+    let keyboard: KeyboardFile;
+    try {
+      keyboard = keyboardFileFromProject(project, choice);
+    } catch (error) {
+      if (!isInputError(error)) throw error;
+      this.set({ problem: { field: error.field, rule: error.rule }, message: '' });
+      return;
+    }
+    const stored = options.fresh ? undefined : project.keyboard_plan?.plan;
+    const pool = new KeyboardWorkerPool(planWorkerCount());
+    const controller = new AbortController();
+    this.controller = controller;
+    this.set({ running: true, stopping: false, progress: null, kept: null, workers: pool.size, message: '', problem: null });
+    let plan: KeyboardPlan;
+    try {
+      plan = await planKeyboard(keyboard, {
+        runner: pool,
+        ...(stored ? { previous: { bars: stored.bars, advice: stored.advice } } : {}),
+        signal: controller.signal,
+        onProgress: (progress) => this.set({ progress, ...(progress.stage === 'design' && progress.note === undefined ? { kept: progress.done } : {}) }),
+      });
+    } catch (error) {
+      this.set({ running: false, stopping: false, problem: isInputError(error) ? { field: error.field, rule: error.rule } : { field: '', rule: error instanceof Error ? error.message : String(error) }, message: 'The plan stopped on a problem; the plan stored before is unchanged.' });
+      return;
+    } finally {
+      pool.close();
+      this.controller = null;
+    }
+    const at = new Date().toISOString();
+    let missing: string[] = [];
+    const outcome = options.apply((current) => {
+      const placed = storePlanInProject(current, plan, at);
+      missing = placed.missing;
+      return withKeyboardPlan(placed.project, keyboard, plan, at);
+    });
+    const s = plan.summary;
+    const counts = `${s.in_tolerance} in tolerance, ${s.out_of_tolerance} out of tolerance, ${s.infeasible} cannot be made on their blank`;
+    const message = !outcome.ok
+      ? `The plan could not be stored (${outcome.error.rule}); the plan stored before is unchanged.`
+      : s.complete
+        ? `Planned ${s.bars} bars: ${counts}.${missing.length ? ` ${missing.length} planned notes have no bar in the project yet; they are in the cut list and the templates.` : ''}`
+        : `Stopped: ${s.designed} of ${s.bars} bars planned (${counts}). Press “Resume plan” to carry on from here.`;
+    this.set({ running: false, stopping: false, message, problem: outcome.ok ? null : { field: '', rule: outcome.error.rule } });
+  }
+}
+
+/** The page's one keyboard-plan run. */
+export const keyboardPlanRun = new KeyboardPlanRun();
+
+/** Re-renders its host on every change of the page's keyboard-plan run. */
+export class KeyboardPlanRunController implements ReactiveController {
+  private unsubscribe: (() => void) | null = null;
+
+  constructor(
+    private readonly host: ReactiveControllerHost,
+    readonly run: KeyboardPlanRun = keyboardPlanRun,
+  ) {
+    host.addController(this);
+  }
+
+  /** The run's state now. */
+  get state(): PlanRunState {
+    return this.run.state;
+  }
+
+  hostConnected(): void {
+    this.unsubscribe = this.run.subscribe(() => this.host.requestUpdate());
+  }
+
+  hostDisconnected(): void {
+    this.unsubscribe?.();
+    this.unsubscribe = null;
+  }
+}
+
+/**
+ * The app shell above an element (the first `bw-app` across shadow roots), which outlives the
+ * views: a run started in one view stores its plan even if the maker has moved on.
+ */
+export function shellOf(element: Element): EventTarget {
+  let node: Node | null = element;
+  while (node) {
+    if (node instanceof Element && node.localName === 'bw-app') return node;
+    node = node.parentNode ?? (node instanceof ShadowRoot ? node.host : null);
+  }
+  return element;
+}
+
+/** Sends an edit to the app shell above `element`. */
+export function applyThroughShell(element: Element): PlanRunOptions['apply'] {
+  const shell = shellOf(element);
+  return (change) => sendEdit(shell, change);
+}
