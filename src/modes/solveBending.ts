@@ -16,6 +16,8 @@ export interface BendingOptions {
   elements?: number;
   /** Bending plane (default vertical, the tuned family). */
   plane?: BendingPlane;
+  /** Eigensolver relative residual (default lowestModes' 1e-7: sensitivities to about 1e-6). */
+  tolerance?: number;
 }
 
 /** Flexible bending modes of a free–free bar on its finite-element mesh. */
@@ -75,5 +77,5 @@ export function solveBending(model: BarModel, options: BendingOptions = {}): Ben
   const modes = options.modes ?? 4;
   const line = bendingLine(model, options.plane ?? 'vertical');
   const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, options.theory ?? 'timoshenko'));
-  return solveBendingLine(line, nodes, options.theory ?? 'timoshenko', modes);
+  return solveBendingLine(line, nodes, options.theory ?? 'timoshenko', modes, undefined, options.tolerance);
 }

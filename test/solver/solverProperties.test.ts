@@ -147,21 +147,23 @@ describe('solver properties on random bars', () => {
 
   it('station sensitivities dλ/dt match central finite differences of the station thickness', () => {
     // Source: eigenvalue derivative dλ = φᵀ(dK − λ dM)φ (Fox & Kapoor, AIAA J. 6 (1968) 2426)
-    // against computed central differences of the re-solved eigenvalue, step δ = 1e-4·t (same
-    // mesh: it depends only on the station positions). Truncation O(δ²) ≈ 1e-9 and rounding of
-    // the re-solved eigenvalues (~1e-12 relative) over the 1e-4 step ≈ 1e-8 (measured: a step of
-    // 1e-5·t already shows 5e-6 of rounding noise); tolerance 1e-6 of the mode's largest station
-    // sensitivity.
+    // against computed central differences of the re-solved eigenvalue, step δ = 1e-3·t (same
+    // mesh: it depends only on the station positions). Truncation O(δ²) and rounding of the
+    // re-solved eigenvalues (~1e-11 relative with the quartic/quintic element, over the step)
+    // balance there: measured 5e-8 of the largest station sensitivity on the worst random bar
+    // found, where δ = 1e-4·t already shows 1.1e-6 of rounding noise; tolerance 1e-6 of the
+    // mode's largest station sensitivity. Solved to a residual of 1e-10, so the check is of the
+    // formula, not of the solver's stopping point.
     fc.assert(
       fc.property(barFiles, theories, (bar, theory) => {
         const solve = (profile: [number, number][]) =>
-          solveBending(barModelFromFile({ ...bar, profile_mm: profile }), { theory, elements: 20, modes: 3 });
+          solveBending(barModelFromFile({ ...bar, profile_mm: profile }), { theory, elements: 20, modes: 3, tolerance: 1e-10 });
         const base = solve(bar.profile_mm!);
         const sensitivities = bendingSensitivities(base);
         const profile = bar.profile_mm!;
         sensitivities.forEach((perStation) => expect(perStation).toHaveLength(profile.length));
         for (let station = 0; station < profile.length; station++) {
-          const step = 1e-4 * profile[station]![1];
+          const step = 1e-3 * profile[station]![1];
           const moved = (sign: number) => profile.map(([x, t], k) => [x, k === station ? t + sign * step : t] as [number, number]);
           const up = solve(moved(1)).eigenvalues;
           const down = solve(moved(-1)).eigenvalues;
