@@ -3,7 +3,7 @@
 // test/browser/ensure-chromium.sh installs the Debian package, and .ci/run calls it).
 import { existsSync, mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { chromium, type Browser, type LaunchOptions } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type LaunchOptions, type Page } from 'playwright-core';
 import { createServer, type ViteDevServer } from 'vite';
 
 /** Where browser tests save screenshots and other artefacts (git-ignored). */
@@ -51,4 +51,20 @@ export async function startWorkbench(): Promise<{ server: ViteDevServer; url: st
 export function artifactPath(name: string): string {
   mkdirSync(artifactDir, { recursive: true });
   return resolve(artifactDir, name);
+}
+
+/** Records a page's uncaught errors and console errors into `problems` (a test asserts it stays empty). */
+export function watchPage(page: Page, problems: string[]): void {
+  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
+  page.on('console', (message) => {
+    if (message.type() === 'error') problems.push(`console error: ${message.text()}`);
+  });
+}
+
+/** A fresh browser profile (its own IndexedDB, downloads allowed) with a watched page. */
+export async function freshPage(browser: Browser, problems: string[], viewport = { width: 1280, height: 800 }): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport, acceptDownloads: true });
+  const page = await context.newPage();
+  watchPage(page, problems);
+  return { context, page };
 }

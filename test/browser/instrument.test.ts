@@ -5,10 +5,10 @@
 // chimeForNote run here in Node for the same stock and note.
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
 import { chimeForNote, keyboardCutListColumns, noteToHz } from '../../src/index.ts';
-import { artifactPath, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
 
 let server: ViteDevServer;
 let baseUrl: string;
@@ -30,15 +30,7 @@ afterAll(async () => {
   await server?.close();
 });
 
-async function freshPage(viewport = { width: 1280, height: 900 }): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport, acceptDownloads: true });
-  const page = await context.newPage();
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  page.on('console', (message) => {
-    if (message.type() === 'error') problems.push(`console error: ${message.text()}`);
-  });
-  return { context, page };
-}
+const freshPage = (viewport = { width: 1280, height: 900 }) => openFreshPage(browser, problems, viewport);
 
 async function openView(page: Page, hash: string): Promise<void> {
   await page.goto(`${baseUrl}#/${hash}`);

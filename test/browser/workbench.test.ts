@@ -5,9 +5,9 @@
 // screenshots of every view at laptop and tablet sizes, and measures drag-to-partials time.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
-import { artifactPath, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench, watchPage } from './harness.ts';
 
 let server: ViteDevServer;
 let baseUrl: string;
@@ -28,19 +28,8 @@ afterAll(async () => {
 });
 
 /** A fresh browser profile (its own IndexedDB) with a page that records console errors. */
-async function freshPage(viewport = { width: 1280, height: 800 }): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({ viewport, acceptDownloads: true });
-  const page = await context.newPage();
-  watch(page);
-  return { context, page };
-}
-
-function watch(page: Page): void {
-  page.on('pageerror', (error) => problems.push(`page error: ${error.message}`));
-  page.on('console', (message) => {
-    if (message.type() === 'error') problems.push(`console error: ${message.text()}`);
-  });
-}
+const freshPage = (viewport?: { width: number; height: number }) => openFreshPage(browser, problems, viewport);
+const watch = (page: Page) => watchPage(page, problems);
 
 /** Opens a view and waits for the app to have a project open and saved. */
 async function openView(page: Page, hash: string): Promise<void> {
