@@ -31,6 +31,11 @@ export function rowStart(matrix: { readonly halfBandwidth: number; readonly firs
   return matrix.firstColumn ? matrix.firstColumn[i]! : i > matrix.halfBandwidth ? i - matrix.halfBandwidth : 0;
 }
 
+/** rowStart of every row (the envelope itself when there is one): what the loops below read. */
+export function rowStarts(matrix: { readonly size: number; readonly halfBandwidth: number; readonly firstColumn?: Int32Array }): Int32Array {
+  return matrix.firstColumn ?? Int32Array.from({ length: matrix.size }, (_, i) => rowStart(matrix, i));
+}
+
 /** Entry (i, j) of a symmetric banded matrix (zero outside the band). */
 export function bandedGet(matrix: BandedMatrix, i: number, j: number): number {
   const row = Math.max(i, j);
@@ -77,14 +82,15 @@ export function bandedAddBlock(matrix: BandedMatrix, first: number, count: numbe
 
 /** y = A·x for a symmetric banded A. Writes into `out` (allocated when absent) and returns it. */
 export function bandedMultiply(matrix: BandedMatrix, x: ArrayLike<number>, out = new Float64Array(matrix.size)): Float64Array {
-  const { size, halfBandwidth: hb, data, firstColumn } = matrix;
+  const { size, halfBandwidth: hb, data } = matrix;
   const width = hb + 1;
+  const first = rowStarts(matrix);
   out.fill(0);
   for (let i = 0; i < size; i++) {
     const row = i * width;
     const xi = x[i]!;
     let sum = data[row]! * xi;
-    const start = firstColumn ? firstColumn[i]! : i > hb ? i - hb : 0;
+    const start = first[i]!;
     // Row i's lower band, A_{i,i−1}, A_{i,i−2}, … at data[row + 1 …]: gathered into y_i and
     // scattered into the rows above by symmetry.
     for (let j = i - 1, o = row + 1; j >= start; j--, o++) {

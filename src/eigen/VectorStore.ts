@@ -1,8 +1,9 @@
 /**
  * Storage for many equal-length vectors, handed out as views into a few large buffers.
- * Allocating one typed array per Lanczos vector costs more than the step's arithmetic on a
- * bar-sized problem (each allocation is its own backing store), so the eigensolver takes its
- * vectors from here: one allocation per `chunk` vectors; views never move; each arrives zeroed.
+ * A typed array of a bar-sized vector is its own backing store (measured 0.75 µs to allocate 173
+ * doubles, against about 3 µs for the banded solve of a Lanczos step, which made three), so the
+ * eigensolver takes its vectors from here: one allocation per `chunk` vectors; views never
+ * move; each arrives zeroed.
  */
 export class VectorStore {
   private buffer: Float64Array<ArrayBuffer> | null = null;

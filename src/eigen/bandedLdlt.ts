@@ -1,4 +1,4 @@
-import type { BandedMatrix } from './BandedMatrix.ts';
+import { rowStarts, type BandedMatrix } from './BandedMatrix.ts';
 
 /** A banded LDLᵀ factorisation: unit lower L in the band layout (diagonal slots hold D), inside the matrix's envelope if it had one. */
 export interface BandedFactor {
@@ -25,7 +25,7 @@ export function bandedLdlt(matrix: BandedMatrix): BandedFactor {
 export function bandedLdltInPlace(matrix: BandedMatrix): BandedFactor {
   const { size: n, halfBandwidth: hb, data, firstColumn } = matrix;
   const width = hb + 1;
-  const first = firstColumn ?? Int32Array.from({ length: n }, (_, i) => (i > hb ? i - hb : 0));
+  const first = rowStarts(matrix);
   const scratch = new Float64Array(width);
   for (let j = 0; j < n; j++) {
     const rowJ = j * width;
@@ -56,11 +56,12 @@ export function bandedLdltInPlace(matrix: BandedMatrix): BandedFactor {
 
 /** Solves (L·D·Lᵀ)·x = b in place of `x` (which holds b on entry). */
 export function bandedLdltSolve(factor: BandedFactor, x: Float64Array): Float64Array {
-  const { size: n, halfBandwidth: hb, data, firstColumn } = factor;
+  const { size: n, halfBandwidth: hb, data } = factor;
   const width = hb + 1;
+  const first = rowStarts(factor);
   // L·y = b by rows: row i of L is contiguous, data[i·width + 1 …] holding L_{i,i−1}, L_{i,i−2}, ….
   for (let i = 1; i < n; i++) {
-    const start = firstColumn ? firstColumn[i]! : i > hb ? i - hb : 0;
+    const start = first[i]!;
     let value = x[i]!;
     for (let k = i - 1, o = i * width + 1; k >= start; k--, o++) value -= data[o]! * x[k]!;
     x[i] = value;
@@ -70,7 +71,7 @@ export function bandedLdltSolve(factor: BandedFactor, x: Float64Array): Float64A
   // rows above it.
   for (let k = n - 1; k > 0; k--) {
     const value = x[k]!;
-    const start = firstColumn ? firstColumn[k]! : k > hb ? k - hb : 0;
+    const start = first[k]!;
     for (let i = k - 1, o = k * width + 1; i >= start; i--, o++) x[i]! -= data[o]! * value;
   }
   return x;

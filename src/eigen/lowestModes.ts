@@ -150,7 +150,8 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
   let ritzSteps = 0;
   let order: number[] = [];
   // Convergence is tested at `nextCheck` steps: first once the Krylov space is twice the set
-  // wanted plus two (shift-invert needs about 2.5 steps per converged pair on bar spectra), then
+  // wanted plus two (shift-invert needs 2.5–3.3 steps per converged pair on bar spectra:
+  // measured 10 steps for 4 vertical modes, 13 for 4 torsion modes), then
   // after as many further steps as pairs were still unconverged (at least two), so the small
   // tridiagonal eigenproblem stays cheap beside the Lanczos steps themselves.
   let nextCheck = Math.min(maxSteps, 2 * wanted + 2);

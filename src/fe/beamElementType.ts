@@ -45,12 +45,8 @@ export const hermiteCubicElement: BeamElementType = {
   rotationDofs: Int32Array.of(0, 1, 2, 3),
   quadrature: gaussLegendre(4),
   evaluate(xi, h, deflection, rotation, curvature, shear) {
+    this.evaluateDeflection(xi, h, deflection);
     const xi2 = xi * xi;
-    const xi3 = xi2 * xi;
-    deflection[0] = 1 - 3 * xi2 + 2 * xi3;
-    deflection[1] = h * (xi - 2 * xi2 + xi3);
-    deflection[2] = 3 * xi2 - 2 * xi3;
-    deflection[3] = h * (xi3 - xi2);
     rotation[0] = (-6 * xi + 6 * xi2) / h;
     rotation[1] = 1 - 4 * xi + 3 * xi2;
     rotation[2] = (6 * xi - 6 * xi2) / h;
@@ -168,9 +164,11 @@ export function timoshenkoLagrangeElement(p: number): BeamElementType {
 }
 
 /**
- * The Timoshenko element barwright uses: θ quartic, w quintic (eigenvalue error O(h⁸)). Against
- * θ cubic / w quartic it needs about 40 % fewer dofs for the same accuracy on tuned bars
- * (measured: 0.0006 cent on modes 1–4 at 92–173 dofs, where the cubic needed 170–282).
+ * The Timoshenko element barwright uses: θ quartic, w quintic (eigenvalue error O(h⁸)). On the
+ * default meshes of three test bars (uniform, undercut practice bar, deep undercut) it reaches
+ * ≤ 6e-4 cent on modes 1–4 with 92–173 dofs, where θ cubic / w quartic used 170–282 for a
+ * similar ≤ 5e-4; where stations every 10 mm set the mesh it has 7 % more dofs (272 against 254)
+ * and a tenth of the error.
  */
 export const timoshenkoElementType: BeamElementType = timoshenkoLagrangeElement(4);
 

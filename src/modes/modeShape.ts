@@ -15,8 +15,17 @@ export function elementAt(nodes: Float64Array, x: number): number {
   return lo;
 }
 
-/** Reusable per-element-type arrays for bendingFieldsAt. */
+/** Reusable per-element-type arrays (four of localDofs) for the field evaluators below. */
 const scratchByType = new WeakMap<object, Float64Array[]>();
+
+function scratchFor(element: { readonly localDofs: number }): Float64Array[] {
+  let scratch = scratchByType.get(element);
+  if (!scratch) {
+    scratch = [0, 1, 2, 3].map(() => new Float64Array(element.localDofs));
+    scratchByType.set(element, scratch);
+  }
+  return scratch;
+}
 
 /**
  * Deflection w (m per unit modal mass), rotation θ, curvature dθ/dx and shear strain of bending
@@ -24,12 +33,7 @@ const scratchByType = new WeakMap<object, Float64Array[]>();
  */
 export function bendingFieldsAt(solution: BendingSolution, mode: number, x: number): { deflection: number; rotation: number; curvature: number; shear: number } {
   const { nodes, element } = solution.system;
-  let scratch = scratchByType.get(element);
-  if (!scratch) {
-    scratch = [0, 1, 2, 3].map(() => new Float64Array(element.localDofs));
-    scratchByType.set(element, scratch);
-  }
-  const [nw, nt, bb, bs] = scratch as [Float64Array, Float64Array, Float64Array, Float64Array];
+  const [nw, nt, bb, bs] = scratchFor(element) as [Float64Array, Float64Array, Float64Array, Float64Array];
   const e = elementAt(nodes, x);
   const h = nodes[e + 1]! - nodes[e]!;
   element.evaluate((x - nodes[e]!) / h, h, nw, nt, bb, bs);
@@ -49,12 +53,12 @@ export function bendingFieldsAt(solution: BendingSolution, mode: number, x: numb
   return { deflection, rotation, curvature, shear };
 }
 
-const deflectionScratch = new Float64Array(32);
 const layoutBySystem = new WeakMap<object, { kind: Uint8Array; position: Float64Array }>();
 
 /** Deflection w alone of bending mode `mode` (0-based) at x (m): bendingFieldsAt's first field, cheaper. */
 export function bendingDeflectionAt(solution: BendingSolution, mode: number, x: number): number {
   const { nodes, element } = solution.system;
+  const deflectionScratch = scratchFor(element)[0]!;
   const e = elementAt(nodes, x);
   const h = nodes[e + 1]! - nodes[e]!;
   element.evaluateDeflection((x - nodes[e]!) / h, h, deflectionScratch);
@@ -65,12 +69,11 @@ export function bendingDeflectionAt(solution: BendingSolution, mode: number, x: 
   return deflection;
 }
 
-const twistValues = new Float64Array(16);
-const twistSlopes = new Float64Array(16);
 
 /** Twist ψ and its slope dψ/dx of torsion mode `mode` (0-based) at x (m), with the element's own basis. */
 export function torsionFieldsAt(solution: TorsionSolution, mode: number, x: number): { twist: number; slope: number } {
   const { nodes, element } = solution.system;
+  const [twistValues, twistSlopes] = scratchFor(element) as [Float64Array, Float64Array];
   const e = elementAt(nodes, x);
   const h = nodes[e + 1]! - nodes[e]!;
   lagrangeBasis(element.points, (x - nodes[e]!) / h, twistValues, twistSlopes);
