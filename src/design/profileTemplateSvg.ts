@@ -27,6 +27,11 @@ const n = (value: number): string => {
   return String(Math.round(value * 1000) / 1000);
 };
 
+/** The printed size (mm) of profileTemplateSvg for a bar of this length and blank thickness (mm): the bar plus margins, title and foot. */
+export function profileTemplateSize(length_mm: number, thickness_mm: number): { width_mm: number; height_mm: number } {
+  return { width_mm: length_mm + 2 * margin, height_mm: margin + titleHeight + thickness_mm + footHeight + margin };
+}
+
 /**
  * A 1:1 side-profile template of a bar for printing and tracing: SVG whose width/height
  * attributes are in millimetres and whose viewBox is in millimetres, so one user unit is one mm
@@ -44,8 +49,7 @@ export function profileTemplateSvg(bar: BarFile, options: TemplateOptions = {}, 
   ];
   const scaleBar = Math.min(options.scale_bar_mm ?? 100, Math.floor(length / 10) * 10 || 10);
   if (!(scaleBar > 0)) throw new InputError(source, 'scale_bar_mm', 'must be greater than 0 mm');
-  const width = length + 2 * margin;
-  const height = margin + titleHeight + blank + footHeight + margin;
+  const { width_mm: width, height_mm: height } = profileTemplateSize(length, blank);
   const left = margin;
   const top = margin + titleHeight;
   const parts: string[] = [];

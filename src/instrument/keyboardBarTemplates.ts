@@ -1,12 +1,15 @@
-import { profileTemplateSvg } from '../design/profileTemplateSvg.ts';
+import { profileTemplateSize, profileTemplateSvg } from '../design/profileTemplateSvg.ts';
 import { stationTable } from '../design/stationTable.ts';
 import { csvNumber, csvTable } from './csvTable.ts';
 import type { KeyboardBarResult } from './keyboardBarResult.ts';
 
-/** One printable file of a bar: a file name and its text. */
+/** One printable file of a bar: a file name and its text, the bar's note and the printed size (mm). */
 export interface BarTemplate {
   file: string;
   svg: string;
+  note: string;
+  width_mm: number;
+  height_mm: number;
 }
 
 /** One bar's station table: a file name and its CSV text. */
@@ -31,6 +34,8 @@ export function keyboardBarTemplates(bars: readonly KeyboardBarResult[]): BarTem
     .sort((a, b) => a.midi - b.midi)
     .map((bar) => ({
       file: `${barFileStem(bar)}.svg`,
+      note: bar.note,
+      ...profileTemplateSize(bar.bar.length_mm, bar.bar.section.shape === 'rect' ? bar.bar.section.thickness_mm : 0),
       svg: profileTemplateSvg(
         bar.bar,
         {

@@ -138,6 +138,9 @@ describe('the demo keyboard planned end to end (52 bars, A2–C7, A4 = 442 Hz)',
       expect(template.file).toBe(`${String(i + 1).padStart(2, '0')}-${bar.note.replace('#', 's')}.svg`);
       // 1:1: the drawing's width is the bar plus the template's 10 mm margins, in millimetres.
       expect(template.svg).toContain(`width="${+(bar.blank.length_mm + 20).toFixed(3)}mm"`);
+      // The size the template reports (for print layouts) is the one it draws at.
+      expect(template.note).toBe(bar.note);
+      expect(template.svg).toContain(`width="${+template.width_mm.toFixed(3)}mm" height="${+template.height_mm.toFixed(3)}mm"`);
       expect(template.svg).toContain(`cord hole ${Math.round(bar.cord_holes_mm[0] * 10) / 10}`);
       expect(template.svg).not.toMatch(/NaN|Infinity/);
       const rows = parseRfc4180(tables[i]!.csv);

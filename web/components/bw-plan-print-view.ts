@@ -25,11 +25,6 @@ interface Sheet {
   heightMm: number;
 }
 
-/** Reads a length in mm from an SVG attribute written by the library (`width="612mm"`). */
-function mmAttribute(svgText: string, name: 'width' | 'height'): number {
-  const match = new RegExp(`<svg[^>]*\\s${name}="([\\d.]+)mm"`).exec(svgText);
-  return match ? Number(match[1]) : 0;
-}
 
 /** `<bw-plan-print-view .project>` */
 @customElement('bw-plan-print-view')
@@ -93,12 +88,13 @@ export class BwPlanPrintView extends LitElement {
     const plan = this.project?.keyboard_plan?.plan;
     if (!plan) return [];
     const bars = plan.notes.map((note) => plan.bars[note]).filter((bar): bar is StoredKeyboardBar => bar !== undefined);
-    const templates = keyboardBarTemplates(bars);
-    const sorted = [...bars].sort((a, b) => a.midi - b.midi);
-    return templates.map((template, index) => {
-      const svg = template.svg.replace(/^<\?xml[^>]*>\s*/, '');
-      return { bar: sorted[index]!, page: `bw-bar-${index + 1}`, svg, widthMm: mmAttribute(svg, 'width'), heightMm: mmAttribute(svg, 'height') };
-    });
+    return keyboardBarTemplates(bars).map((template, index) => ({
+      bar: plan.bars[template.note]!,
+      page: `bw-bar-${index + 1}`,
+      svg: template.svg.replace(/^<\?xml[^>]*>\s*/, ''),
+      widthMm: template.width_mm,
+      heightMm: template.height_mm,
+    }));
   }
 
   /** Named pages live in the document's own style sheet (@page rules do not apply inside shadow roots). */
