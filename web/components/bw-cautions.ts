@@ -1,10 +1,11 @@
 // The workshop cautions, shown where a cut is planned: one calm line, with the fuller note a
-// click away. Never a pop-up, never repeated in the way.
+// click away (the woodworking note), or a short list given by the library for the piece at hand
+// (e.g. a chime set's metal cautions). Never a pop-up, never repeated in the way.
 import { LitElement, html, css } from 'lit';
-import { customElement } from 'lit/decorators.js';
+import { customElement, property } from 'lit/decorators.js';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 
-/** `<bw-cautions>` */
+/** `<bw-cautions>` or `<bw-cautions .items>` */
 @customElement('bw-cautions')
 export class BwCautions extends LitElement {
   static override styles = [
@@ -35,7 +36,17 @@ export class BwCautions extends LitElement {
     `,
   ];
 
+  /** The library's cautions for this piece, shown as an open list; absent: the woodworking note. */
+  @property({ attribute: false }) items: readonly string[] | null = null;
+
   protected override render() {
+    if (this.items)
+      return html`<div class="caution" role="note" aria-label="Workshop cautions">
+        <strong>Before cutting</strong>
+        <ul>
+          ${this.items.map((caution) => html`<li>${caution}</li>`)}
+        </ul>
+      </div>`;
     return html`<div class="caution" role="note" aria-label="Workshop cautions">
       <details>
         <summary>Before cutting: cut less than predicted, guard the tools, extract the dust. More…</summary>

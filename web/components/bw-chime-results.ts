@@ -7,6 +7,7 @@ import { customElement, property } from 'lit/decorators.js';
 import type { ChimeSetPlan } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatCents, formatHz, formatMm, formatNumber } from '../format.ts';
+import './bw-cautions.ts';
 
 /** `<bw-chime-results .plan>` */
 @customElement('bw-chime-results')
@@ -17,31 +18,12 @@ export class BwChimeResults extends LitElement {
       :host {
         display: block;
       }
-      .table-wrap {
-        overflow-x: auto;
-      }
       table {
         width: 100%;
-      }
-      td.note {
-        font-size: 1.25rem;
-        font-weight: 800;
       }
       td.length {
         font-size: 1.25rem;
         font-weight: 700;
-      }
-      .caution {
-        background: var(--bw-caution-ground);
-        color: var(--bw-caution-ink);
-        border-left: 5px solid var(--bw-caution-ink);
-        border-radius: 6px;
-        padding: 0.5rem 0.8rem;
-        margin: 0.8rem 0;
-      }
-      .caution ul {
-        margin: 0.2rem 0;
-        padding-left: 1.2rem;
       }
       @media print {
         details {
@@ -105,12 +87,7 @@ export class BwChimeResults extends LitElement {
               ${plan.chimes.flatMap((c) => c.warnings.map((w) => html`<li>${c.note}: ${w}</li>`))}
             </ul>`
         : nothing}
-      <div class="caution" role="note" aria-label="Workshop cautions">
-        <strong>Before cutting</strong>
-        <ul>
-          ${plan.cautions.map((caution) => html`<li>${caution}</li>`)}
-        </ul>
-      </div>
+      <bw-cautions .items=${plan.cautions}></bw-cautions>
       <details>
         <summary>Engineering detail</summary>
         <p class="muted">

@@ -45,9 +45,6 @@ export class BwKeyboardView extends LitElement {
       .registers input {
         width: 8rem;
       }
-      .table-wrap {
-        overflow-x: auto;
-      }
       table.bars {
         width: 100%;
       }

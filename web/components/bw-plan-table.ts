@@ -24,15 +24,8 @@ export class BwPlanTable extends LitElement {
         display: block;
         min-width: 0;
       }
-      .table-wrap {
-        overflow-x: auto;
-      }
       table {
         width: 100%;
-      }
-      td.note {
-        font-size: 1.25rem;
-        font-weight: 800;
       }
       .status {
         font-weight: 700;

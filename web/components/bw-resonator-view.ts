@@ -29,9 +29,6 @@ export class BwResonatorView extends LitElement {
         display: grid;
         gap: 0.2rem;
       }
-      .table-wrap {
-        overflow-x: auto;
-      }
       table {
         width: 100%;
       }

@@ -115,6 +115,15 @@ export const sharedStyles = css`
   th.number {
     text-align: right;
   }
+  /* A wide table scrolls inside its box instead of widening the page (tablet portrait). */
+  .table-wrap {
+    overflow-x: auto;
+  }
+  /* The note name leads each row of a per-bar or per-chime table: readable from the bench. */
+  td.note {
+    font-size: 1.25rem;
+    font-weight: 800;
+  }
   .muted {
     color: var(--bw-ink-muted);
   }
