@@ -68,3 +68,33 @@ export async function freshPage(browser: Browser, problems: string[], viewport =
   watchPage(page, problems);
   return { context, page };
 }
+
+/**
+ * Inputs without a label and controls smaller than 44 × 44 px (ui-notes.md: touch targets) anywhere
+ * on the page, shadow roots included. Buttons, selects and inputs are sized; `alsoSized` adds tags.
+ */
+export async function auditControls(page: Page, alsoSized: readonly string[] = []): Promise<{ unlabelled: string[]; small: string[] }> {
+  return page.evaluate((extra) => {
+    const sized = new Set(['button', 'select', ...extra]);
+    const unlabelled: string[] = [];
+    const small: string[] = [];
+    const visit = (root: Document | ShadowRoot) => {
+      for (const element of root.querySelectorAll('*')) {
+        if (element.shadowRoot) visit(element.shadowRoot);
+        const tag = element.tagName.toLowerCase();
+        if (['input', 'select', 'textarea'].includes(tag)) {
+          const control = element as HTMLInputElement;
+          if (control.type === 'file') continue;
+          const named = (control.labels && control.labels.length > 0) || control.getAttribute('aria-label') || control.getAttribute('aria-labelledby');
+          if (!named) unlabelled.push(`${tag}#${control.id}`);
+        }
+        if (sized.has(tag) || (tag === 'input' && (element as HTMLInputElement).type !== 'file')) {
+          const box = element.getBoundingClientRect();
+          if (box.width > 0 && box.height > 0 && (box.width < 44 || box.height < 44)) small.push(`${tag} "${(element.textContent ?? '').trim().slice(0, 30)}" ${box.width.toFixed(0)}×${box.height.toFixed(0)}`);
+        }
+      }
+    };
+    visit(document);
+    return { unlabelled, small };
+  }, [...alsoSized]);
+}

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
 import { chimeForNote, keyboardCutListColumns, noteToHz } from '../../src/index.ts';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, auditControls as auditPageControls, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
 
 let server: ViteDevServer;
 let baseUrl: string;
@@ -37,31 +37,8 @@ async function openView(page: Page, hash: string): Promise<void> {
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 30_000 });
 }
 
-/** Inputs without a label and controls smaller than 44 × 44 px anywhere on the page (shadow roots included). */
-async function auditControls(page: Page): Promise<{ unlabelled: string[]; small: string[] }> {
-  return page.evaluate(() => {
-    const unlabelled: string[] = [];
-    const small: string[] = [];
-    const visit = (root: Document | ShadowRoot) => {
-      for (const element of root.querySelectorAll('*')) {
-        if (element.shadowRoot) visit(element.shadowRoot);
-        const tag = element.tagName.toLowerCase();
-        if (['input', 'select', 'textarea'].includes(tag)) {
-          const control = element as HTMLInputElement;
-          if (control.type === 'file') continue;
-          const named = (control.labels && control.labels.length > 0) || control.getAttribute('aria-label') || control.getAttribute('aria-labelledby');
-          if (!named) unlabelled.push(`${tag}#${control.id}`);
-        }
-        if (tag === 'button' || tag === 'select' || tag === 'summary' || (tag === 'input' && (element as HTMLInputElement).type !== 'file')) {
-          const box = element.getBoundingClientRect();
-          if (box.width > 0 && box.height > 0 && (box.width < 44 || box.height < 44)) small.push(`${tag} "${(element.textContent ?? '').trim().slice(0, 30)}" ${box.width.toFixed(0)}×${box.height.toFixed(0)}`);
-        }
-      }
-    };
-    visit(document);
-    return { unlabelled, small };
-  });
-}
+/** The touch-target audit here also covers disclosure summaries (the plan's engineering detail). */
+const auditControls = (page: Page) => auditPageControls(page, ['summary']);
 
 /** RFC 4180 CSV (quoted fields, doubled quotes, CRLF) into rows of cells. */
 function parseCsv(text: string): string[][] {

@@ -7,7 +7,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench, watchPage } from './harness.ts';
+import { artifactPath, auditControls, freshPage as openFreshPage, launchBrowser, startWorkbench, watchPage } from './harness.ts';
 
 let server: ViteDevServer;
 let baseUrl: string;
@@ -279,28 +279,7 @@ describe('workbench in Chromium', () => {
         if (view.startsWith('tuning')) await page.locator('[data-testid="mark-cut-done"]').waitFor({ timeout: 60_000 });
         if (view === 'keyboard') await expect.poll(() => page.locator('[data-testid="bar-list"]').innerText(), { timeout: 30_000 }).not.toMatch(/predicting/);
         await page.waitForTimeout(800);
-        const audit = await page.evaluate(() => {
-          const unlabelled: string[] = [];
-          const small: string[] = [];
-          const visit = (root: Document | ShadowRoot) => {
-            for (const element of root.querySelectorAll('*')) {
-              if (element.shadowRoot) visit(element.shadowRoot);
-              const tag = element.tagName.toLowerCase();
-              if (['input', 'select', 'textarea'].includes(tag)) {
-                const control = element as HTMLInputElement;
-                if (control.type === 'file') continue;
-                const named = (control.labels && control.labels.length > 0) || control.getAttribute('aria-label') || control.getAttribute('aria-labelledby');
-                if (!named) unlabelled.push(`${tag}#${control.id}`);
-              }
-              if (tag === 'button' || tag === 'select' || (tag === 'input' && (element as HTMLInputElement).type !== 'file')) {
-                const box = element.getBoundingClientRect();
-                if (box.width > 0 && box.height > 0 && (box.width < 44 || box.height < 44)) small.push(`${tag} "${(element.textContent ?? '').trim().slice(0, 30)}" ${box.width.toFixed(0)}×${box.height.toFixed(0)}`);
-              }
-            }
-          };
-          visit(document);
-          return { unlabelled, small };
-        });
+        const audit = await auditControls(page);
         expect(audit.unlabelled, `${view} at ${viewport.name}`).toEqual([]);
         expect(audit.small, `${view} at ${viewport.name}`).toEqual([]);
         await page.screenshot({ path: artifactPath(`view-${view.split('/')[0]}-${viewport.name}.png`), fullPage: true });
