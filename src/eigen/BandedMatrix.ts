@@ -5,7 +5,8 @@
  * no non-zero left of column firstColumn[i] (≥ i − halfBandwidth, non-decreasing). LDLᵀ fill-in
  * stays inside the envelope (George & Liu, Computer Solution of Large Sparse Positive Definite
  * Systems (1981), ch. 4), so every operation here skips the structural zeros outside it: for
- * beam elements with interior dofs that is about 40 % of the band.
+ * beam elements with interior dofs that is 40 % of the band (counted for the quartic/quintic
+ * Timoshenko element: 54 of 90 band slots per element are inside the envelope).
  */
 export interface BandedMatrix {
   readonly size: number;
