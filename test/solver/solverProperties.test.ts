@@ -160,7 +160,7 @@ describe('solver properties on random bars', () => {
     // Source: eigenvalue derivative dλ = φᵀ(dK − λ dM)φ (Fox & Kapoor, AIAA J. 6 (1968) 2426)
     // against computed central differences of the re-solved eigenvalue (same mesh: it depends only
     // on the station positions), Richardson-extrapolated from steps δ and 2δ, δ = 1e-3·t, so the
-    // truncation is O(δ⁴). A plain central difference is not enough: where a thin station (4 mm
+    // truncation is O(δ⁴). A plain central difference is not enough: where a thin station (4.2 mm
     // beside a 14 mm blank) carries EI ∝ t³, its O(δ²) truncation alone is 1.0–1.3e-6 of the
     // largest station sensitivity at δ = 1e-3·t (measured), right at the tolerance. With the
     // extrapolation the worst of 300 random bars (and that bar, kept below as an example) measured
