@@ -1,5 +1,5 @@
-import { bandedCombine, bandedMultiply, type BandedMatrix } from './BandedMatrix.ts';
-import { bandedLdlt, bandedLdltInPlace, bandedLdltSolve } from './bandedLdlt.ts';
+import type { BandedMatrix } from './BandedMatrix.ts';
+import { bandedEigenproblem, type GeneralizedEigenproblem } from './GeneralizedEigenproblem.ts';
 import { VectorStore } from './VectorStore.ts';
 import { tridiagonalEigen, tridiagonalEigenvector } from './tridiagonalEigen.ts';
 
@@ -85,7 +85,17 @@ function orthogonalise(w: Float64Array, basis: readonly Float64Array[], massBasi
  * banded solve and multiply, O(n·b), plus re-orthogonalisation O(n·steps).
  */
 export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: number, options: LowestModesOptions): Eigenpairs {
-  const n = stiffness.size;
+  return lowestModesOf(bandedEigenproblem(stiffness, mass), count, options);
+}
+
+/**
+ * lowestModes on any storage behind the GeneralizedEigenproblem interface (banded for beam
+ * lines, envelope for the solid bar): the one Lanczos of the project. Cost per step: one solve
+ * with K − σM and one multiply by M, plus re-orthogonalisation O(n·steps).
+ */
+export function lowestModesOf(problem: GeneralizedEigenproblem, count: number, options: LowestModesOptions): Eigenpairs {
+  const n = problem.size;
+  const multiplyMass = (x: Float64Array, out: Float64Array<ArrayBuffer>): Float64Array => problem.multiplyMass(x, out);
   const tolerance = options.tolerance ?? 1e-7;
   const sigma = options.shift;
   // M-orthonormal rigid-body basis (modified Gram–Schmidt in the M inner product).
@@ -97,7 +107,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
     const v = rigidStore.take();
     v.set(mode);
     for (let pass = 0; pass < 2; pass++) orthogonalise(v, rigid, massRigid);
-    const mv = bandedMultiply(mass, v, rigidStore.take());
+    const mv = multiplyMass(v, rigidStore.take());
     const norm = Math.sqrt(dot(v, mv));
     if (!(norm > 0)) continue;
     const inverse = 1 / norm;
@@ -113,7 +123,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
   let wanted = minimum;
   if (wanted <= 0) return { eigenvalues: new Float64Array(0), vectors: [], steps: 0 };
 
-  const factor = sigma === 0 ? bandedLdlt(stiffness) : bandedLdltInPlace(bandedCombine(stiffness, -sigma, mass));
+  const solveShifted = problem.factorShifted(sigma);
   const store = new VectorStore(n, 32);
   const basis: Float64Array[] = [];
   const massBasis: Float64Array[] = [];
@@ -129,7 +139,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
         orthogonalise(v, rigid, massRigid);
         orthogonalise(v, basis, massBasis);
       }
-      const mv = bandedMultiply(mass, v, store.take());
+      const mv = multiplyMass(v, store.take());
       const norm = Math.sqrt(dot(v, mv));
       if (norm > 1e-8) {
         const inverse = 1 / norm;
@@ -160,7 +170,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
     const w = store.take();
     const q = basis[j]!;
     w.set(massBasis[j]!);
-    bandedLdltSolve(factor, w);
+    solveShifted(w);
     // α = (Mq_j)ᵀw (rigid components of w do not change it: q_j is M-orthogonal to them), then
     // the three-term recurrence w ← w − α q_j − β q_{j−1}, fused with ‖w‖² for the test below.
     const a = dot(massBasis[j]!, w);
@@ -190,7 +200,7 @@ export function lowestModes(stiffness: BandedMatrix, mass: BandedMatrix, count: 
       orthogonalise(w, rigid, massRigid);
       orthogonalise(w, basis, massBasis);
     }
-    const mw = bandedMultiply(mass, w, store.take());
+    const mw = multiplyMass(w, store.take());
     const b = Math.sqrt(Math.max(dot(w, mw), 0));
     const steps = j + 1;
     const exhausted = steps >= maxSteps;
