@@ -1,8 +1,8 @@
 import { bandedCombine, bandedMultiply, type BandedMatrix } from './BandedMatrix.ts';
 import { bandedLdlt, bandedLdltInPlace, bandedLdltSolve } from './bandedLdlt.ts';
-import { envelopeCombine, type EnvelopeMatrix } from './EnvelopeMatrix.ts';
+import type { EnvelopeMatrix } from './EnvelopeMatrix.ts';
 import { envelopeLdltInPlace, envelopeLdltSolve } from './envelopeLdlt.ts';
-import { compressEnvelope, sparseSymmetricMultiply } from './SparseSymmetricMatrix.ts';
+import { envelopeAddSparse, sparseSymmetricMultiply, type SparseSymmetricMatrix } from './SparseSymmetricMatrix.ts';
 
 /**
  * A symmetric generalized eigenproblem K·x = λ·M·x seen through the two operations shift-invert
@@ -33,16 +33,16 @@ export function bandedEigenproblem(stiffness: BandedMatrix, mass: BandedMatrix):
 }
 
 /**
- * The problem of two envelope matrices of one layout (envelope LDLᵀ of K − σM); M is multiplied
- * through a compressed copy without its structural zeros.
+ * The problem of an envelope K and a sparse symmetric M inside K's envelope (as a mesh's
+ * consistent mass is): K − σM is formed in a copy of K and factored there (envelope LDLᵀ).
  */
-export function envelopeEigenproblem(stiffness: EnvelopeMatrix, mass: EnvelopeMatrix): GeneralizedEigenproblem {
-  const compressedMass = compressEnvelope(mass);
+export function envelopeEigenproblem(stiffness: EnvelopeMatrix, mass: SparseSymmetricMatrix): GeneralizedEigenproblem {
   return {
     size: stiffness.size,
-    multiplyMass: (x, out) => sparseSymmetricMultiply(compressedMass, x, out),
+    multiplyMass: (x, out) => sparseSymmetricMultiply(mass, x, out),
     factorShifted(shift) {
-      const factor = envelopeLdltInPlace(envelopeCombine(stiffness, -shift, mass));
+      const shifted = envelopeAddSparse({ ...stiffness, data: stiffness.data.slice() }, -shift, mass);
+      const factor = envelopeLdltInPlace(shifted);
       return (x) => void envelopeLdltSolve(factor, x);
     },
   };

@@ -60,3 +60,34 @@ export function sparseSymmetricMultiply(matrix: SparseSymmetricMatrix, x: ArrayL
   }
   return out;
 }
+
+/** target ← target + c·A for a sparse symmetric A inside the target's envelope (in place). */
+export function envelopeAddSparse(target: EnvelopeMatrix, c: number, matrix: SparseSymmetricMatrix): EnvelopeMatrix {
+  const { firstColumn, rowOffset, data } = target;
+  if (target.size !== matrix.size) throw new Error('internal: matrices differ in size');
+  for (let i = 0; i < matrix.size; i++) {
+    const offset = rowOffset[i]!;
+    data[offset + i]! += c * matrix.diagonal[i]!;
+    const end = matrix.rowStart[i + 1]!;
+    for (let k = matrix.rowStart[i]!; k < end; k++) {
+      const j = matrix.columns[k]!;
+      if (j < firstColumn[i]!) throw new Error(`internal: sparse entry (${i}, ${j}) outside the envelope`);
+      data[offset + j]! += c * matrix.values[k]!;
+    }
+  }
+  return target;
+}
+
+/** The dense matrix (array of rows): for tests and small checks only. */
+export function sparseSymmetricToDense(matrix: SparseSymmetricMatrix): number[][] {
+  const dense = Array.from({ length: matrix.size }, () => new Array<number>(matrix.size).fill(0));
+  for (let i = 0; i < matrix.size; i++) {
+    dense[i]![i] = matrix.diagonal[i]!;
+    for (let k = matrix.rowStart[i]!; k < matrix.rowStart[i + 1]!; k++) {
+      const j = matrix.columns[k]!;
+      dense[i]![j] = matrix.values[k]!;
+      dense[j]![i] = matrix.values[k]!;
+    }
+  }
+  return dense;
+}

@@ -10,3 +10,7 @@ export * from './elementThicknesses.ts';
 export * from './assembleBending.ts';
 export * from './assembleTorsion.ts';
 export * from './constrainDofs.ts';
+export * from './solid/hexahedronBasis.ts';
+export * from './solid/solidElement.ts';
+export * from './solid/solidBarMesh.ts';
+export * from './solid/assembleSolid.ts';

@@ -108,3 +108,36 @@ export function torsionLaw(section: Section, material: Material): SectionLaw {
     },
   };
 }
+
+/**
+ * The longitudinal (rod) law [EA, ρA]: axial stretching u along the bar obeys
+ * (EA u′)′ = −ω² ρA u, the same second-order operator as St-Venant torsion, so the torsion
+ * elements and assembler serve it unchanged. Rect: EA = E·b·t, ρA = ρ·b·t.
+ */
+export function longitudinalLaw(section: Section, material: Material): SectionLaw {
+  const E = material.youngModulus;
+  const rho = material.density;
+  if (section.shape === 'rect') {
+    const b = section.width;
+    return {
+      count: 2,
+      evaluate(t, out, derivative) {
+        out[0] = E * b * t;
+        out[1] = rho * b * t;
+        if (derivative) {
+          derivative[0] = E * b;
+          derivative[1] = rho * b;
+        }
+      },
+    };
+  }
+  const area = sectionProperties(section).area;
+  return {
+    count: 2,
+    evaluate(_t, out, derivative) {
+      out[0] = E * area;
+      out[1] = rho * area;
+      derivative?.fill(0);
+    },
+  };
+}

@@ -1,5 +1,6 @@
 import { InputError } from './InputError.ts';
 import { isMaterialPresetName, materialPresetNames } from './materialPresetNames.ts';
+import { resolveWoodConstants, woodConstantFields, type BarFileGrain, type WoodConstantField } from './woodConstants.ts';
 
 /** The bar file's section, in millimetres (contract: `*.bar.json`). */
 export type BarFileSection =
@@ -7,16 +8,21 @@ export type BarFileSection =
   | { shape: 'tube'; outer_diameter_mm: number; wall_mm: number }
   | { shape: 'round'; diameter_mm: number };
 
-/** The bar file's material: explicit values (GPa, kg/m³) or a preset name. */
+/**
+ * The bar file's material: explicit values (GPa, kg/m³) or a preset name. For wood, the optional
+ * orthotropic constants (`E_R_GPa` … `nu_RT`, see woodConstants.ts); `pitch_cents_per_c`: how
+ * the partials move per °C (checked here, used by the temperature features).
+ */
 export type BarFileMaterial =
-  | {
+  | ({
       E_GPa: number;
       density_kg_m3: number;
       G_GPa?: number;
       poisson?: number;
       shear_coefficient?: number;
-    }
-  | { preset: string; shear_coefficient?: number };
+      pitch_cents_per_c?: number;
+    } & Partial<Record<WoodConstantField, number>>)
+  | { preset: string; shear_coefficient?: number; pitch_cents_per_c?: number };
 
 /** A bar file (`*.bar.json`, format `barwright.bar` version 1), exactly as the contract gives it. */
 export interface BarFile {
@@ -28,7 +34,11 @@ export interface BarFile {
   /** `[position_mm, thickness_mm]` pairs, rect only; absent means a uniform blank. */
   profile_mm?: [number, number][];
   material: BarFileMaterial;
+  /** How the growth rings run through the section (default radial through the thickness). */
+  grain?: BarFileGrain;
 }
+
+export type { BarFileGrain } from './woodConstants.ts';
 
 type Json = Record<string, unknown>;
 
@@ -78,13 +88,51 @@ function parsePoisson(source: string, value: unknown): number | undefined {
   return value;
 }
 
-function parseMaterial(source: string, value: unknown): BarFileMaterial {
+function parsePitchPerDegree(source: string, value: unknown): number | undefined {
+  if (value === undefined) return undefined;
+  if (typeof value !== 'number' || !Number.isFinite(value) || Math.abs(value) > 50)
+    throw new InputError(source, 'material.pitch_cents_per_c', `must be a number of cents per °C between -50 and 50 (got ${JSON.stringify(value)})`);
+  return value;
+}
+
+/** The grain orientation: `{ "through_thickness": "radial" | "tangential" }` or `{ "ring_angle_deg": 0 … 90 }`. */
+function parseGrain(source: string, value: unknown): BarFileGrain {
+  if (!isObject(value)) throw new InputError(source, 'grain', 'must be an object with "through_thickness" ("radial" or "tangential") or "ring_angle_deg"');
+  const hasThrough = value.through_thickness !== undefined;
+  const hasAngle = value.ring_angle_deg !== undefined;
+  if (hasThrough === hasAngle) throw new InputError(source, 'grain', 'give exactly one of "through_thickness" ("radial" or "tangential") and "ring_angle_deg"');
+  if (hasThrough) {
+    if (value.through_thickness !== 'radial' && value.through_thickness !== 'tangential')
+      throw new InputError(source, 'grain.through_thickness', `must be "radial" or "tangential" (got ${JSON.stringify(value.through_thickness)})`);
+    return { through_thickness: value.through_thickness };
+  }
+  const angle = value.ring_angle_deg;
+  if (typeof angle !== 'number' || !Number.isFinite(angle) || angle < 0 || angle > 90)
+    throw new InputError(source, 'grain.ring_angle_deg', `must be the growth rings' angle to the thickness direction, from 0 to 90 degrees (got ${JSON.stringify(angle)})`);
+  return { ring_angle_deg: angle };
+}
+
+/** True when an explicit material is wood for the solid model: orthotropic constants or a grain given, or E/G above 3 (an isotropic solid has E/G = 2(1 + ν) < 3). */
+export function isWoodMaterial(material: BarFileMaterial, grain: BarFileGrain | undefined): boolean {
+  if ('preset' in material) return false;
+  if (grain !== undefined || woodConstantFields.some((field) => material[field] !== undefined)) return true;
+  return material.G_GPa !== undefined && material.E_GPa / material.G_GPa > 3;
+}
+
+function parseMaterial(source: string, value: unknown, grain: BarFileGrain | undefined): BarFileMaterial {
   if (!isObject(value)) throw new InputError(source, 'material', 'must be an object with E_GPa and density_kg_m3, or a preset');
   const shear_coefficient = parseShearCoefficient(source, value.shear_coefficient);
+  const pitch_cents_per_c = parsePitchPerDegree(source, value.pitch_cents_per_c);
   if (value.preset !== undefined) {
     if (!isMaterialPresetName(value.preset))
       throw new InputError(source, 'material.preset', `unknown preset ${JSON.stringify(value.preset)} (known: ${materialPresetNames.join(', ')})`);
-    return shear_coefficient === undefined ? { preset: value.preset } : { preset: value.preset, shear_coefficient };
+    const fromPreset = woodConstantFields.find((field) => value[field] !== undefined);
+    if (fromPreset) throw new InputError(source, `material.${fromPreset}`, 'a preset carries its own constants: give E_GPa and the constants instead of a preset');
+    return {
+      preset: value.preset,
+      ...(shear_coefficient === undefined ? {} : { shear_coefficient }),
+      ...(pitch_cents_per_c === undefined ? {} : { pitch_cents_per_c }),
+    };
   }
   const material: BarFileMaterial = {
     E_GPa: positiveNumber(source, 'material.E_GPa', value.E_GPa, 'GPa'),
@@ -94,6 +142,15 @@ function parseMaterial(source: string, value: unknown): BarFileMaterial {
   const poisson = parsePoisson(source, value.poisson);
   if (poisson !== undefined) material.poisson = poisson;
   if (shear_coefficient !== undefined) material.shear_coefficient = shear_coefficient;
+  if (pitch_cents_per_c !== undefined) material.pitch_cents_per_c = pitch_cents_per_c;
+  for (const field of woodConstantFields) {
+    if (value[field] === undefined) continue;
+    material[field] = positiveNumber(source, `material.${field}`, value[field], field.endsWith('_GPa') ? 'GPa' : '');
+  }
+  if (isWoodMaterial(material, grain)) {
+    const resolved = resolveWoodConstants(material, grain);
+    if ('rule' in resolved) throw new InputError(source, resolved.field, resolved.rule);
+  }
   return material;
 }
 
@@ -138,7 +195,8 @@ export function parseBarFile(value: unknown, source = 'bar'): BarFile {
   if (value.label !== undefined && typeof value.label !== 'string') throw new InputError(source, 'label', 'must be a string');
   const length_mm = positiveNumber(source, 'length_mm', value.length_mm, 'mm');
   const section = parseSection(source, value.section);
-  const material = parseMaterial(source, value.material);
+  const grain = value.grain === undefined ? undefined : parseGrain(source, value.grain);
+  const material = parseMaterial(source, value.material, grain);
   let profile_mm: [number, number][] | undefined;
   if (value.profile_mm !== undefined) {
     if (section.shape !== 'rect') throw new InputError(source, 'profile_mm', `only a rect section can have a profile (this bar is a ${section.shape})`);
@@ -152,6 +210,7 @@ export function parseBarFile(value: unknown, source = 'bar'): BarFile {
     section,
     ...(profile_mm ? { profile_mm } : {}),
     material,
+    ...(grain ? { grain } : {}),
   };
   return bar;
 }

@@ -14,3 +14,4 @@ export * from './sessionLogEdits.ts';
 export * from './keyboardFileTypes.ts';
 export * from './keyboardFile.ts';
 export * from './chimeSetFile.ts';
+export * from './woodConstants.ts';

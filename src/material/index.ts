@@ -1,2 +1,4 @@
 export * from './Material.ts';
 export * from './materialPresets.ts';
+export * from './orthotropicStiffness.ts';
+export * from './solidElasticity.ts';

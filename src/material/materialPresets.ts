@@ -1,4 +1,5 @@
 import type { MaterialPresetName } from '../fileFormats/materialPresetNames.ts';
+import { hardwoodRatiosSource, resolveWoodConstants, type WoodConstants } from '../fileFormats/woodConstants.ts';
 
 /** A named material preset, in the bar file's units (GPa, kg/m³), each value with its source. */
 export interface MaterialPreset {
@@ -13,8 +14,25 @@ export interface MaterialPreset {
   readonly poisson: number;
   readonly density_kg_m3: number;
   /** Where each value comes from: a publication and table, "from memory", or "demo". */
-  readonly sources: { readonly E: string; readonly G: string; readonly density: string; readonly poisson: string };
+  readonly sources: { readonly E: string; readonly G: string; readonly density: string; readonly poisson: string; readonly orthotropic?: string };
+  /** Woods: the full orthotropic set (GPa) for the solid model, with G_LR = G_GPa (radial through the thickness). */
+  readonly orthotropic?: WoodConstants;
 }
+
+/**
+ * A wood preset's orthotropic set: E_L and G_LR its own, the rest by the hardwood ratios
+ * (E_R, E_T from E_L; G_LT, G_RT scaled to G_LR; Poisson's ratios as tabulated).
+ */
+function woodSet(E_GPa: number, G_GPa: number): WoodConstants {
+  const resolved = resolveWoodConstants({ E_GPa, G_GPa }, { through_thickness: 'radial' });
+  if ('rule' in resolved) throw new Error(`internal: preset constants break ${resolved.field}: ${resolved.rule}`);
+  // Three significant digits, as a table would print them.
+  const set = { ...resolved.constants };
+  for (const key of Object.keys(set) as (keyof WoodConstants)[]) set[key] = +set[key].toPrecision(3);
+  return set;
+}
+
+const woodOrthotropicSource = `E_L and G_LR (= G) as above; E_R, E_T, G_LT, G_RT and the Poisson's ratios from the ${hardwoodRatiosSource}`;
 
 const woodShear =
   'E/G ≈ 12–16 for hardwoods along the grain (USDA Wood Handbook FPL-GTR-190, table 5-1 ratios; from memory): fit per blank';
@@ -33,7 +51,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     G_GPa: 1.3,
     poisson: 0.37,
     density_kg_m3: 1000,
-    sources: { E: 'demo (invented, plausible for a dense tropical hardwood)', G: 'demo (E/G ≈ 14)', density: 'demo', poisson: 'demo' },
+    orthotropic: woodSet(18, 1.3),
+    sources: { E: 'demo (invented, plausible for a dense tropical hardwood)', G: 'demo (E/G ≈ 14)', density: 'demo', poisson: 'demo', orthotropic: `demo: ${woodOrthotropicSource}` },
   },
   {
     name: 'rosewood-dense',
@@ -43,11 +62,13 @@ export const materialPresets: readonly MaterialPreset[] = [
     G_GPa: 1.45,
     poisson: 0.37,
     density_kg_m3: 1000,
+    orthotropic: woodSet(20, 1.45),
     sources: {
       E: 'secondary sources give E_L 17–26 GPa (from memory); mid value',
       G: woodShear,
       density: 'USDA Forest Products Laboratory species sheet: air-dry 930–1090 kg/m³ (published)',
       poisson: 'typical hardwood ν_LR (from memory)',
+      orthotropic: woodOrthotropicSource,
     },
   },
   {
@@ -58,11 +79,13 @@ export const materialPresets: readonly MaterialPreset[] = [
     G_GPa: 0.95,
     poisson: 0.37,
     density_kg_m3: 835,
+    orthotropic: woodSet(13.0, 0.95),
     sources: {
       E: 'USDA Forest Products Laboratory species sheet, static bending modulus 13.0 GPa (published)',
       G: woodShear,
       density: 'USDA Forest Products Laboratory species sheet: 750–900 kg/m³ (published); mid value',
       poisson: 'typical hardwood ν_LR (from memory)',
+      orthotropic: woodOrthotropicSource,
     },
   },
   {
@@ -73,11 +96,13 @@ export const materialPresets: readonly MaterialPreset[] = [
     G_GPa: 0.85,
     poisson: 0.37,
     density_kg_m3: 745,
+    orthotropic: woodSet(11.5, 0.85),
     sources: {
       E: 'USDA Forest Products Laboratory species sheet, 10.8–12.1 GPa (published); mid value',
       G: woodShear,
       density: 'USDA Forest Products Laboratory species sheet: 670–820 kg/m³ (published); mid value',
       poisson: 'typical hardwood ν_LR (from memory)',
+      orthotropic: woodOrthotropicSource,
     },
   },
   {

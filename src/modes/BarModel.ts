@@ -1,6 +1,10 @@
-import type { Material } from '../material/Material.ts';
+import type { Material, MaterialElasticity } from '../material/Material.ts';
+import type { GrainOrientation } from '../material/orthotropicStiffness.ts';
+import { orthotropicFromGPa } from '../material/solidElasticity.ts';
+import { InputError } from '../fileFormats/InputError.ts';
+import { bendingPlaneShear, resolveWoodConstants, ringAngleDegrees, type BarFileGrain } from '../fileFormats/woodConstants.ts';
 import { findMaterialPreset } from '../material/materialPresets.ts';
-import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
+import { isWoodMaterial, type BarFile, type BarFileMaterial, type BarFileSection } from '../fileFormats/barFile.ts';
 import type { Section } from '../section/Section.ts';
 import { uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 
@@ -30,13 +34,18 @@ export function sectionFromFile(section: BarFileSection): Section {
 
 /**
  * The material of a bar file in SI: a preset by name, or explicit E, ρ and G (or ν, giving the
- * isotropic G = E/(2(1+ν))); ν defaults to 0.3 (contract).
+ * isotropic G = E/(2(1+ν))); ν defaults to 0.3 (contract). With it, the 3D elastic law for the
+ * solid model (`elasticity`): metals and materials with E/G ≤ 3 isotropic; woods orthotropic
+ * with their grain (default radial), constants not given filled by the bar file's rules
+ * (resolveWoodConstants). For wood the beam's G is the vertical plane's shear modulus: G_GPa, or
+ * from G_LR and G_LT for the grain when the file gives those instead.
  */
-export function materialFromFile(material: BarFileMaterial): Material {
+export function materialFromFile(material: BarFileMaterial, grain?: BarFileGrain): Material {
   let E: number;
   let density: number;
   let G: number | undefined;
   let poisson: number;
+  let elasticity: MaterialElasticity;
   if ('preset' in material) {
     const preset = findMaterialPreset(material.preset);
     if (!preset) throw new Error(`internal: unknown preset ${material.preset} (parseBarFile should have caught it)`);
@@ -44,16 +53,38 @@ export function materialFromFile(material: BarFileMaterial): Material {
     density = preset.density_kg_m3;
     poisson = preset.poisson;
     G = preset.G_GPa === undefined ? undefined : preset.G_GPa * GPa;
+    if (preset.orthotropic) {
+      const set = preset.orthotropic;
+      G = bendingPlaneShear(set.G_LR_GPa, set.G_LT_GPa, ringAngleDegrees(grain)).vertical * GPa;
+      elasticity = { kind: 'orthotropic', constants: orthotropicFromGPa(set), grain: grainOrientation(grain), assumed: [] };
+    } else {
+      elasticity = { kind: 'isotropic', youngModulus: E, poisson, assumed: [] };
+    }
   } else {
     E = material.E_GPa * GPa;
     density = material.density_kg_m3;
     poisson = material.poisson ?? 0.3;
     G = material.G_GPa === undefined ? undefined : material.G_GPa * GPa;
+    if (isWoodMaterial(material, grain)) {
+      const resolved = resolveWoodConstants(material, grain);
+      if ('rule' in resolved) throw new InputError('bar', resolved.field, resolved.rule);
+      const set = resolved.constants;
+      G ??= bendingPlaneShear(set.G_LR_GPa, set.G_LT_GPa, ringAngleDegrees(grain)).vertical * GPa;
+      elasticity = { kind: 'orthotropic', constants: orthotropicFromGPa(set), grain: grainOrientation(grain), assumed: resolved.assumed };
+    } else {
+      const isotropicPoisson = material.poisson ?? (G === undefined ? 0.3 : E / (2 * G) - 1);
+      elasticity = { kind: 'isotropic', youngModulus: E, poisson: isotropicPoisson, assumed: material.poisson === undefined && G === undefined ? ['poisson'] : [] };
+    }
   }
   const shearModulus = G ?? E / (2 * (1 + poisson));
   return material.shear_coefficient === undefined
-    ? { youngModulus: E, shearModulus, density, poisson }
-    : { youngModulus: E, shearModulus, density, poisson, shearCoefficient: material.shear_coefficient };
+    ? { youngModulus: E, shearModulus, density, poisson, elasticity }
+    : { youngModulus: E, shearModulus, density, poisson, shearCoefficient: material.shear_coefficient, elasticity };
+}
+
+/** The grain of a bar file as a ring angle in radians. */
+export function grainOrientation(grain: BarFileGrain | undefined): GrainOrientation {
+  return { ringAngle: (ringAngleDegrees(grain) * Math.PI) / 180 };
 }
 
 /** Converts a validated bar file (mm, GPa) to a BarModel (SI). */
@@ -69,5 +100,5 @@ export function barModelFromFile(bar: BarFile): BarModel {
   } else {
     profile = uniformProfile(length, section.shape === 'rect' ? section.thickness : section.shape === 'round' ? section.diameter : section.outerDiameter);
   }
-  return { length, section, profile, material: materialFromFile(bar.material) };
+  return { length, section, profile, material: materialFromFile(bar.material, bar.grain) };
 }

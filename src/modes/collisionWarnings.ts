@@ -1,6 +1,6 @@
-/** A mode of another family (torsion or lateral bending) to check against the tuned partials. */
+/** A mode of another family (torsion, lateral bending, or longitudinal for the solid model) to check against the tuned partials. */
 export interface OtherMode {
-  readonly family: 'torsion' | 'lateral';
+  readonly family: 'torsion' | 'lateral' | 'longitudinal';
   readonly mode: number;
   readonly hz: number;
 }

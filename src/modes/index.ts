@@ -5,4 +5,8 @@ export * from './solveTorsion.ts';
 export * from './modeShape.ts';
 export * from './bendingSensitivities.ts';
 export * from './collisionWarnings.ts';
+export * from './analyzeLineBar.ts';
+export * from './analyzeSolidBar.ts';
+export * from './solidBarModes.ts';
+export * from './solidModeShape.ts';
 export * from './analyzeBar.ts';

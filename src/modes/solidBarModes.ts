@@ -17,11 +17,22 @@ export interface SolidBar {
 }
 
 /**
- * barwright's default solid mesh: 20-node hexahedra, at most length/40 along the bar (plus every
- * profile station), 3 across each half width (graded toward the sides), 3 through the
- * thickness; chosen from the measured convergence study in test/solid/solidConvergence.test.ts.
+ * barwright's default solid meshes, one per part: 20-node hexahedra, refined twice at each kink
+ * of the underside, graded across the width. Vertical bending (symmetric half) needs the length
+ * and thickness resolved and hardly the width; torsion and lateral bending (antisymmetric half)
+ * the width and thickness and less the length. The full body takes the finer of each. Chosen
+ * from the measured convergence study (test/solid/solidConvergence.test.ts, DEVELOPERS.md).
  */
-export const defaultSolidMesh: SolidMeshOptions = { element: 'serendipity-20', lengthElements: 40, halfWidthElements: 3, thicknessElements: 3, widthGrading: true };
+export const defaultSolidMeshes: Readonly<Record<SolidPart, SolidMeshOptions>> = {
+  symmetric: { element: 'serendipity-20', lengthElements: 30, halfWidthElements: 2, thicknessElements: 4, widthGrading: true, stationRefinement: 2 },
+  antisymmetric: { element: 'serendipity-20', lengthElements: 20, halfWidthElements: 3, thicknessElements: 3, widthGrading: true, stationRefinement: 2 },
+  full: { element: 'serendipity-20', lengthElements: 30, halfWidthElements: 3, thicknessElements: 4, widthGrading: true, stationRefinement: 2 },
+};
+
+/** The mesh of a part: its default with the given options on top. */
+export function solidMeshFor(part: SolidPart, options: Partial<SolidMeshOptions> = {}): SolidMeshOptions {
+  return { ...defaultSolidMeshes[part], ...options };
+}
 
 /** How many modes of each half to find: the `count` lowest, and every one up to `upToHz`. */
 export interface SolidPartRequest {
@@ -31,10 +42,11 @@ export interface SolidPartRequest {
 
 /** Options of solveSolidBar. */
 export interface SolidSolveOptions {
+  /** Mesh options on top of each part's default (defaultSolidMeshes). */
   readonly mesh?: Partial<SolidMeshOptions>;
   /** Lanczos relative residual (default 1e-7; analyzeBar uses 1e-5, frequencies to about 1e-10). */
   readonly tolerance?: number;
-  /** Solve the full body even when the halves could be solved apart (for checks). */
+  /** Solve the full body even when the halves could be solved apart (for checks; its mesh: defaultSolidMeshes.full). */
   readonly fullBody?: boolean;
 }
 
@@ -63,6 +75,9 @@ export interface SolidMode {
   readonly signChanges: number;
   /** Where its nodal lines cross the top face's centre line (m from the left end). */
   readonly nodalLines: Float64Array;
+  /** Its main beam-like curve (see ModeClassification) at the mesh slices `slices` (m). */
+  readonly curve: Float64Array;
+  readonly slices: Float64Array;
   /** Which part solution it came from, and its position there. */
   readonly part: number;
   readonly vectorIndex: number;
@@ -120,17 +135,25 @@ export function solveSolidPart(bar: SolidBar, part: SolidPart, mesh: SolidMeshOp
  * otherwise the full body, for the sum of both counts up to the higher bound. Pure and synchronous.
  */
 export function solveSolidBar(bar: SolidBar, request: { symmetric: SolidPartRequest; antisymmetric: SolidPartRequest }, options: SolidSolveOptions = {}): SolidSolution {
-  const mesh: SolidMeshOptions = { ...defaultSolidMesh, ...options.mesh };
   const tolerance = options.tolerance ?? 1e-7;
   const parts: SolidPartSolution[] = [];
   if (bar.mirrorSymmetric && !options.fullBody) {
-    parts.push(solveSolidPart(bar, 'symmetric', mesh, request.symmetric, tolerance));
-    parts.push(solveSolidPart(bar, 'antisymmetric', mesh, request.antisymmetric, tolerance));
+    parts.push(solveSolidPart(bar, 'symmetric', solidMeshFor('symmetric', options.mesh), request.symmetric, tolerance));
+    parts.push(solveSolidPart(bar, 'antisymmetric', solidMeshFor('antisymmetric', options.mesh), request.antisymmetric, tolerance));
   } else {
+    const mesh = solidMeshFor('full', options.mesh);
     const bounds = [request.symmetric.upToHz, request.antisymmetric.upToHz].filter((b): b is number => b !== undefined);
     const upToHz = bounds.length ? Math.max(...bounds) : undefined;
     parts.push(solveSolidPart(bar, 'full', mesh, { count: request.symmetric.count + request.antisymmetric.count, ...(upToHz === undefined ? {} : { upToHz }) }, tolerance));
   }
+  return { parts, modes: solidModesOf(parts), dofs: parts.reduce((sum, p) => sum + p.system.dofCount, 0) };
+}
+
+/**
+ * The modes of solved parts, classified (classifySolidMode), with their top-face nodal lines,
+ * in ascending frequency, indexed within their kind.
+ */
+export function solidModesOf(parts: readonly SolidPartSolution[]): SolidMode[] {
   const found: Omit<SolidMode, 'index'>[] = [];
   parts.forEach((solution, partIndex) => {
     solution.vectors.forEach((vector, vectorIndex) => {
@@ -143,6 +166,8 @@ export function solveSolidBar(bar: SolidBar, request: { symmetric: SolidPartRequ
         purity: classification.purity,
         signChanges: classification.signChanges,
         nodalLines: topFaceNodalLines(solution.system, vector, classification.kind),
+        curve: classification.curve,
+        slices: classification.slices,
         part: partIndex,
         vectorIndex,
       });
@@ -150,6 +175,5 @@ export function solveSolidBar(bar: SolidBar, request: { symmetric: SolidPartRequ
   });
   found.sort((a, b) => a.hz - b.hz);
   const counters: Record<SolidModeKind, number> = { bending: 0, torsion: 0, lateral: 0, longitudinal: 0 };
-  const modes = found.map((mode) => ({ ...mode, index: ++counters[mode.kind] }));
-  return { parts, modes, dofs: parts.reduce((sum, p) => sum + p.system.dofCount, 0) };
+  return found.map((mode) => ({ ...mode, index: ++counters[mode.kind] }));
 }

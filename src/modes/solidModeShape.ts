@@ -103,6 +103,8 @@ export interface ModeClassification {
   readonly signChanges: number;
   /** The winning family's curve at the slices (w̄, ψ, v̄ or ū), for plots. */
   readonly curve: Float64Array;
+  /** The slices' positions along the bar (m). */
+  readonly slices: Float64Array;
 }
 
 /**
@@ -136,7 +138,7 @@ export function classifySolidMode(system: SolidSystem, vector: ArrayLike<number>
     if (energies[k] > energies[kind]) kind = k;
   }
   const curve = kind === 'bending' ? motion.vertical : kind === 'torsion' ? motion.twist : kind === 'lateral' ? motion.lateral : motion.axial;
-  return { kind, purity: total > 0 ? energies[kind] / total : 0, signChanges: signChanges(curve), curve };
+  return { kind, purity: total > 0 ? energies[kind] / total : 0, signChanges: signChanges(curve), curve, slices: motion.x };
 }
 
 /** Sign changes along a sequence, ignoring values under 1e-6 of its largest magnitude. */

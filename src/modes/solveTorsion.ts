@@ -1,7 +1,7 @@
 import { assembleTorsion, torsionRigidMode, type TorsionSystem } from '../fe/assembleTorsion.ts';
 import type { BeamLine } from '../fe/BeamLine.ts';
 import { buildMesh } from '../fe/buildMesh.ts';
-import { torsionLaw } from '../fe/sectionLaw.ts';
+import { longitudinalLaw, torsionLaw } from '../fe/sectionLaw.ts';
 import { lowestModes } from '../eigen/lowestModes.ts';
 import type { BarModel } from './BarModel.ts';
 import { meshDensity } from './meshDensity.ts';
@@ -14,6 +14,14 @@ export interface TorsionSolution {
   readonly frequencies: Float64Array;
   /** M-normalised twist vectors (dof layout of the system, see TorsionSystem), ψ(0) > 0. */
   readonly vectors: Float64Array[];
+}
+
+/**
+ * The longitudinal (rod) line of a bar: solveTorsionLine solves it too (same operator; its
+ * "twist" is then the axial displacement).
+ */
+export function longitudinalLine(model: BarModel): BeamLine {
+  return { length: model.length, profile: model.profile, law: longitudinalLaw(model.section, model.material) };
 }
 
 /** The torsion beam line of a bar. */

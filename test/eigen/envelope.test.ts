@@ -3,6 +3,7 @@
 import numeric from 'numeric';
 import { describe, expect, it } from 'vitest';
 import {
+  compressEnvelope,
   createEnvelopeMatrix,
   envelopeAddElement,
   envelopeEigenproblem,
@@ -15,12 +16,19 @@ import {
   type EnvelopeMatrix,
 } from '../../src/index.ts';
 
-/** A random symmetric positive definite matrix with a ragged envelope (diagonally dominant). */
-function randomEnvelope(size: number, seed: number): EnvelopeMatrix {
+/**
+ * A random symmetric positive definite matrix with a ragged envelope (diagonally dominant): row
+ * widths up to `widest`, first columns non-decreasing or, with `monotone` false, in any order
+ * (as an assembled mesh may give them).
+ */
+function randomEnvelope(size: number, seed: number, widest = 9, monotone = true): EnvelopeMatrix {
   let state = seed;
   const random = () => (state = (state * 48271) % 2147483647) / 2147483647;
   const first = new Int32Array(size);
-  for (let i = 1; i < size; i++) first[i] = Math.max(first[i - 1]!, i - Math.floor(random() * 9));
+  for (let i = 1; i < size; i++) {
+    const start = Math.max(0, i - Math.floor(random() * widest));
+    first[i] = monotone ? Math.max(first[i - 1]!, start) : start;
+  }
   const matrix = createEnvelopeMatrix(envelopeLayout(first));
   for (let i = 0; i < size; i++) {
     for (let j = first[i]!; j < i; j++) {
@@ -28,19 +36,22 @@ function randomEnvelope(size: number, seed: number): EnvelopeMatrix {
       const value = random() < 0.3 ? 0 : random() - 0.5;
       matrix.data[matrix.rowOffset[i]! + j] = value;
     }
-    matrix.data[matrix.rowOffset[i]! + i] = 12 + random();
+    matrix.data[matrix.rowOffset[i]! + i] = 2 * widest + random();
   }
   return matrix;
 }
 
 describe('envelope matrix', () => {
-  it('LDLᵀ solves like numeric.solve on random SPD matrices with ragged envelopes (relative 1e-12)', () => {
-    for (const [size, seed] of [
-      [7, 3],
-      [40, 11],
-      [120, 5],
-    ]) {
-      const a = randomEnvelope(size!, seed!);
+  it('LDLᵀ solves like numeric.solve on random SPD matrices with ragged envelopes, first columns in order or not (relative 1e-12)', () => {
+    for (const [size, seed, widest, monotone] of [
+      [7, 3, 9, true],
+      [40, 11, 9, true],
+      [120, 5, 9, true],
+      // Wide rows (the four-column blocks of the factor, the paired rows of the solve) and first columns in any order.
+      [150, 23, 40, false],
+      [151, 29, 17, false],
+    ] as const) {
+      const a = randomEnvelope(size, seed, widest, monotone);
       const b = Float64Array.from({ length: size! }, (_, i) => Math.cos(0.3 * i) + 0.1 * i);
       const x = envelopeLdltSolve(envelopeLdlt(a), Float64Array.from(b));
       const reference = numeric.solve(envelopeToDense(a), Array.from(b)) as number[];
@@ -87,7 +98,7 @@ describe('Lanczos on envelope storage', () => {
     const mass = createEnvelopeMatrix(layout);
     for (let e = 0; e + 1 < n; e++) envelopeAddElement(stiffness, [e, e + 1], [1, -1, -1, 1]);
     for (let i = 0; i < n; i++) mass.data[mass.rowOffset[i]! + i] = 1;
-    const result = lowestModesOf(envelopeEigenproblem(stiffness, mass), 5, { shift: -0.001, rigidModes: [new Float64Array(n).fill(1)] });
+    const result = lowestModesOf(envelopeEigenproblem(stiffness, compressEnvelope(mass)), 5, { shift: -0.001, rigidModes: [new Float64Array(n).fill(1)] });
     result.eigenvalues.forEach((value, k) => expect(Math.abs(value - (2 - 2 * Math.cos(((k + 1) * Math.PI) / n)))).toBeLessThan(1e-12));
   });
 });

@@ -1,4 +1,4 @@
-import { analyzeBar } from '../../modes/index.ts';
+import { analyzeBar, type BarAnalysis, type ModeResult } from '../../modes/index.ts';
 import { InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
@@ -6,8 +6,8 @@ import { readBarFile } from '../readBarFile.ts';
 /** `barwright modes BAR`: the bar's bending, torsion and lateral modes (contract). */
 export const modesCommand: Command = {
   name: 'modes',
-  summary: 'vibration modes of a bar: bending partials, ratios, nodes, torsion and lateral modes',
-  usage: 'barwright modes BAR [--modes N] [--theory timoshenko|euler-bernoulli] [--shapes] [--json]',
+  summary: 'vibration modes of a bar: bending partials, ratios, nodes, torsion and lateral modes (line model or 3D solid)',
+  usage: 'barwright modes BAR [--modes N] [--theory timoshenko|euler-bernoulli|solid] [--shapes] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       modes: { type: 'string' },
@@ -18,11 +18,15 @@ export const modesCommand: Command = {
     if (positionals.length !== 1) throw new InputError('command line', 'BAR', 'give exactly one bar file');
     const modes = numberOption(values.modes, 'modes', (n) => (Number.isInteger(n) && n >= 1 && n <= 30 ? null : 'must be a whole number from 1 to 30')) ?? 4;
     const theory = values.theory ?? 'timoshenko';
-    if (theory !== 'timoshenko' && theory !== 'euler-bernoulli') throw new InputError('command line', '--theory', `must be timoshenko or euler-bernoulli (got "${theory}")`);
+    if (theory !== 'timoshenko' && theory !== 'euler-bernoulli' && theory !== 'solid') throw new InputError('command line', '--theory', `must be timoshenko, euler-bernoulli or solid (got "${theory}")`);
     const bar = await readBarFile(positionals[0]!, io);
     const analysis = analyzeBar(bar, { modes, theory, shapes: values.shapes ?? false });
     if (values.json) {
       io.stdout(toJson(analysis));
+      return 0;
+    }
+    if (analysis.theory === 'solid') {
+      io.stdout(solidTable(bar.label ?? positionals[0]!, analysis));
       return 0;
     }
     const lines: string[] = [];
@@ -48,3 +52,36 @@ export const modesCommand: Command = {
     return 0;
   },
 };
+
+const signed = (value: number | null | undefined, decimals: number): string => (value === null || value === undefined ? '—' : `${value >= 0 ? '+' : ''}${fixed(value, decimals)}`);
+
+/** The human-readable table of a solid-theory analysis. */
+function solidTable(title: string, analysis: BarAnalysis): string {
+  const lines: string[] = [];
+  const mesh = analysis.mesh;
+  const material = analysis.material!;
+  lines.push(
+    `${title}: solid theory (3D ${material.model} elasticity${material.grain ? `, grain ${material.grain}` : ''}), ${mesh.elements} hexahedra (${mesh.element ?? 'quadratic'}), ${mesh.unknowns} unknowns, ${mesh.solved_as === 'halves' ? 'the two halves across the width solved apart' : 'the full body solved'}`,
+  );
+  if (material.assumed.length) {
+    const shown = material.assumed.map((field) => (field in material.constants ? `${field} ${+material.constants[field]!.toPrecision(3)}` : field));
+    lines.push(`Assumed (not in the bar file): ${shown.join(', ')}${material.assumed_source ? ` — ${material.assumed_source}` : ''}`);
+  }
+  for (const note of analysis.notes ?? []) lines.push(`Note: ${note}`);
+  const table = (rows: readonly ModeResult[], first: string) =>
+    formatTable([
+      [first, 'Hz', 'ratio', 'line model ¢', 'nodal lines on the top centre line (mm from left end)'],
+      ...rows.map((m) => [String(m.mode), fixed(m.hz, 2), fixed(m.ratio, 4), signed(m.line_model_cents, 1), (m.nodal_lines_mm ?? []).map((x) => fixed(x, 1)).join(', ')]),
+    ]);
+  lines.push('', 'Bending (vertical) — the tuned partials', table(analysis.bending, 'partial'));
+  for (const [name, family] of [
+    ['Torsion', analysis.torsion],
+    ['Lateral bending', analysis.lateral],
+    ['Longitudinal', analysis.longitudinal ?? []],
+  ] as const) {
+    lines.push('', name, family.length ? table(family, 'mode') : '(none in this range)');
+  }
+  lines.push('', 'line model ¢: the Timoshenko / St-Venant / rod line model\'s mode against the solid\'s, 1200·log2(f_line/f_solid); + means the line model is sharp.');
+  lines.push(analysis.warnings.length ? analysis.warnings.map((w) => `warning: ${w}`).join('\n') : 'No torsion, lateral or longitudinal mode within 50 cents of partials 1–3.');
+  return lines.join('\n');
+}

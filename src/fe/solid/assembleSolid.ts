@@ -1,16 +1,16 @@
 import { createEnvelopeMatrix, envelopeAddElement, envelopeLayout, type EnvelopeMatrix } from '../../eigen/EnvelopeMatrix.ts';
-import type { VoigtStiffness } from '../../material/orthotropicStiffness.ts';
+import type { SparseSymmetricMatrix } from '../../eigen/SparseSymmetricMatrix.ts';
+import type { SolidMaterial } from '../../material/solidElasticity.ts';
 import { hexahedronTable } from './hexahedronBasis.ts';
 import type { SolidBarMesh } from './solidBarMesh.ts';
 import { solidElementMatrices, solidElementScratch } from './solidElement.ts';
 
-/** The elastic solid's material: Voigt stiffness in the bar's axes (Pa) and density (kg/m³). */
-export interface SolidMaterial {
-  readonly stiffness: VoigtStiffness;
-  readonly density: number;
-}
+export type { SolidMaterial } from '../../material/solidElasticity.ts';
 
-/** Assembled stiffness and consistent mass of a solid bar mesh (envelope storage, one layout). */
+/**
+ * Assembled stiffness (envelope storage) and consistent mass (compressed: it couples only equal
+ * displacement components, so its envelope would be mostly zeros) of a solid bar mesh.
+ */
 export interface SolidSystem {
   readonly mesh: SolidBarMesh;
   readonly material: SolidMaterial;
@@ -18,7 +18,7 @@ export interface SolidSystem {
   readonly nodeDofs: Int32Array;
   readonly dofCount: number;
   readonly stiffness: EnvelopeMatrix;
-  readonly mass: EnvelopeMatrix;
+  readonly mass: SparseSymmetricMatrix;
   /** How many element matrices were computed; the others were the same shape moved (reused). */
   readonly distinctElements: number;
 }
@@ -47,11 +47,56 @@ function keyPart(value: number): number {
 }
 
 /**
+ * The node-to-node pattern of a mesh: for each node, the lower-numbered nodes it shares an
+ * element with, ascending (compressed rows).
+ */
+function nodeNeighbours(mesh: SolidBarMesh): { rowStart: Int32Array; columns: Int32Array } {
+  const n = mesh.element.nodeCount;
+  const elementsOfNode: number[][] = Array.from({ length: mesh.nodeCount }, () => []);
+  for (let e = 0; e < mesh.elementCount; e++) for (let a = 0; a < n; a++) elementsOfNode[mesh.connectivity[e * n + a]!]!.push(e);
+  const mark = new Int32Array(mesh.nodeCount).fill(-1);
+  const rowStart = new Int32Array(mesh.nodeCount + 1);
+  const columns: number[] = [];
+  for (let node = 0; node < mesh.nodeCount; node++) {
+    const row: number[] = [];
+    for (const e of elementsOfNode[node]!) {
+      for (let a = 0; a < n; a++) {
+        const other = mesh.connectivity[e * n + a]!;
+        if (other < node && mark[other] !== node) {
+          mark[other] = node;
+          row.push(other);
+        }
+      }
+    }
+    row.sort((p, q) => p - q);
+    columns.push(...row);
+    rowStart[node + 1] = columns.length;
+  }
+  return { rowStart, columns: Int32Array.from(columns) };
+}
+
+/** Position of `column` in compressed row `row` (binary search; the column must be there). */
+function positionOf(rowStart: Int32Array, columns: Int32Array, row: number, column: number): number {
+  let lo = rowStart[row]!;
+  let hi = rowStart[row + 1]! - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const value = columns[mid]!;
+    if (value === column) return mid;
+    if (value < column) lo = mid + 1;
+    else hi = mid - 1;
+  }
+  throw new Error(`internal: node ${column} is not a neighbour of node ${row}`);
+}
+
+/**
  * Assembles K and M of a solid bar mesh (pipeline: mesh → element → assembly). Element matrices
  * come from solidElementMatrices at 3 × 3 × 3 Gauss points; an element that is the translate of
  * one already computed (every element across the width, and equal elements along uncut parts)
  * reuses its matrices, keyed by the node coordinates relative to its first node to a picometre.
- * The envelope of each row reaches back to the first dof of the elements that hold it.
+ * K goes into an envelope whose rows reach back to the first dof of the elements that hold
+ * them; the consistent mass ρ∫N_aN_b dV is assembled node by node and expanded to the three
+ * components (where the mirror plane leaves them free).
  */
 export function assembleSolidBar(mesh: SolidBarMesh, material: SolidMaterial): SolidSystem {
   const { nodeDofs, dofCount } = solidNodeDofs(mesh);
@@ -72,12 +117,14 @@ export function assembleSolidBar(mesh: SolidBarMesh, material: SolidMaterial): S
     for (let k = 0; k < size; k++) if (d[k]! >= 0 && d[k]! < lowest) lowest = d[k]!;
     for (let k = 0; k < size; k++) if (d[k]! >= 0 && firstColumn[d[k]!]! > lowest) firstColumn[d[k]!] = lowest;
   }
-  const layout = envelopeLayout(firstColumn);
-  const stiffness = createEnvelopeMatrix(layout);
-  const mass = createEnvelopeMatrix(layout);
+  const stiffness = createEnvelopeMatrix(envelopeLayout(firstColumn));
+  const neighbours = nodeNeighbours(mesh);
+  const nodeMass = new Float64Array(neighbours.columns.length);
+  const nodeMassDiagonal = new Float64Array(mesh.nodeCount);
   const table = hexahedronTable(mesh.element);
   const scratch = solidElementScratch(n);
   const coordinates = new Float64Array(size);
+  const fullMass = new Float64Array(size * size);
   const cache = new Map<string, { stiffness: Float64Array; mass: Float64Array }>();
   for (let e = 0; e < mesh.elementCount; e++) {
     const origin = mesh.connectivity[e * n]!;
@@ -93,14 +140,44 @@ export function assembleSolidBar(mesh: SolidBarMesh, material: SolidMaterial): S
     const key = keyParts.join(',');
     let matrices = cache.get(key);
     if (!matrices) {
-      matrices = { stiffness: new Float64Array(size * size), mass: new Float64Array(size * size) };
-      solidElementMatrices(table, coordinates, material.stiffness, material.density, matrices.stiffness, matrices.mass, scratch);
+      matrices = { stiffness: new Float64Array(size * size), mass: new Float64Array(n * n) };
+      solidElementMatrices(table, coordinates, material.stiffness, material.density, matrices.stiffness, fullMass, scratch);
+      // The mass is the same for each component: keep its scalar (node by node) block.
+      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) matrices.mass[a * n + b] = fullMass[3 * a * size + 3 * b]!;
       cache.set(key, matrices);
     }
-    const d = elementDofs(e);
-    envelopeAddElement(stiffness, d, matrices.stiffness);
-    envelopeAddElement(mass, d, matrices.mass);
+    envelopeAddElement(stiffness, elementDofs(e), matrices.stiffness);
+    for (let a = 0; a < n; a++) {
+      const row = mesh.connectivity[e * n + a]!;
+      for (let b = 0; b < n; b++) {
+        const column = mesh.connectivity[e * n + b]!;
+        if (column > row) continue;
+        const value = matrices.mass[a * n + b]!;
+        if (column === row) nodeMassDiagonal[row]! += value;
+        else nodeMass[positionOf(neighbours.rowStart, neighbours.columns, row, column)]! += value;
+      }
+    }
   }
+  // Expand the node-by-node mass to dofs (rows in dof order: nodes ascending, then components).
+  const rowStart = new Int32Array(dofCount + 1);
+  const columns: number[] = [];
+  const values: number[] = [];
+  const diagonal = new Float64Array(dofCount);
+  for (let node = 0; node < mesh.nodeCount; node++) {
+    for (let c = 0; c < 3; c++) {
+      const dof = nodeDofs[3 * node + c]!;
+      if (dof < 0) continue;
+      diagonal[dof] = nodeMassDiagonal[node]!;
+      for (let k = neighbours.rowStart[node]!; k < neighbours.rowStart[node + 1]!; k++) {
+        const other = nodeDofs[3 * neighbours.columns[k]! + c]!;
+        if (other < 0) continue;
+        columns.push(other);
+        values.push(nodeMass[k]!);
+      }
+      rowStart[dof + 1] = columns.length;
+    }
+  }
+  const mass: SparseSymmetricMatrix = { size: dofCount, diagonal, rowStart, columns: Int32Array.from(columns), values: Float64Array.from(values) };
   return { mesh, material, nodeDofs, dofCount, stiffness, mass, distinctElements: cache.size };
 }
 
