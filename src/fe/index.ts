@@ -14,3 +14,4 @@ export * from './solid/hexahedronBasis.ts';
 export * from './solid/solidElement.ts';
 export * from './solid/solidBarMesh.ts';
 export * from './solid/assembleSolid.ts';
+export * from './solid/solidShapeDerivative.ts';

@@ -126,8 +126,11 @@ export function invertSix(matrix: ArrayLike<number>): Float64Array {
  * ring angle α of the orientation.
  */
 export function grainAxes(orientation: GrainOrientation): Float64Array {
-  const c = Math.cos(orientation.ringAngle);
-  const s = Math.sin(orientation.ringAngle);
+  // Exact zeros for radial and tangential grain (cos(π/2) is 6e-17 in floating point), so their
+  // stiffness is exactly orthotropic in the bar's axes.
+  const snap = (value: number) => (Math.abs(value) < 1e-15 ? 0 : value);
+  const c = snap(Math.cos(orientation.ringAngle));
+  const s = snap(Math.sin(orientation.ringAngle));
   // Rows x, y, z; columns L, R, T.
   return Float64Array.of(1, 0, 0, 0, c, s, 0, -s, c);
 }

@@ -10,3 +10,4 @@ export * from './analyzeSolidBar.ts';
 export * from './solidBarModes.ts';
 export * from './solidModeShape.ts';
 export * from './analyzeBar.ts';
+export * from './solidSensitivities.ts';

@@ -3,7 +3,7 @@
 import numeric from 'numeric';
 import { describe, expect, it } from 'vitest';
 import { hexahedronTable, lagrangeHexahedron, serendipityHexahedron, type HexahedronType } from '../../src/fe/solid/hexahedronBasis.ts';
-import { hexahedronGradients as solidGradients, solidElementMatrices } from '../../src/fe/solid/solidElement.ts';
+import { hexahedronGradients as solidGradients, isAxisAligned, solidElementMatrices, solidElementWidthParts, widthScaledStiffness } from '../../src/fe/solid/solidElement.ts';
 import { isotropicStiffness, orthotropicStiffness, type OrthotropicElasticity } from '../../src/material/orthotropicStiffness.ts';
 import { symmetricEigen } from '../reference/denseGeneralizedEigen.ts';
 
@@ -255,6 +255,61 @@ describe('isotropic limit', () => {
     for (const ringAngle of [0, 0.3, Math.PI / 2, 2]) {
       const c = orthotropicStiffness(same, { ringAngle });
       c.forEach((value, k) => expect(Math.abs(value - isotropic[k]!)).toBeLessThan(1e-12 * E));
+    }
+  });
+});
+
+describe('axis-aligned fast path', () => {
+  it('radial and tangential grain give a stiffness exactly orthotropic in the bar axes, and the closed-form Bᵀ C B equals the general product (1e-13)', () => {
+    for (const ringAngle of [0, Math.PI / 2]) {
+      const c = orthotropicStiffness(wood, { ringAngle });
+      expect(isAxisAligned(c)).toBe(true);
+      const table = hexahedronTable(serendipityHexahedron);
+      const size = 60;
+      const coordinates = distortedElement(serendipityHexahedron, 0.15);
+      const fast = new Float64Array(size * size);
+      const general = new Float64Array(size * size);
+      solidElementMatrices(table, coordinates, c, 750, fast, null);
+      // A shear coupling of 1e-300 Pa forces the general product without changing any sum.
+      const nudged = Float64Array.from(c);
+      nudged[3 * 6 + 4] = nudged[4 * 6 + 3] = 1e-300;
+      expect(isAxisAligned(nudged)).toBe(false);
+      solidElementMatrices(table, coordinates, nudged, 750, general, null);
+      const scale = Math.max(...general.map(Math.abs));
+      fast.forEach((value, k) => expect(Math.abs(value - general[k]!)).toBeLessThan(1e-13 * scale));
+    }
+  });
+});
+
+describe('width split of an element affine across the width', () => {
+  it('(h/2)·K₀ + K₁ + (2/h)·K₂ and (h/2)·M₀ equal the direct matrices of the element of width h (1e-12), for both element types', () => {
+    for (const type of types) {
+      const n = type.nodeCount;
+      const size = 3 * n;
+      const table = hexahedronTable(type);
+      const c = orthotropicStiffness(wood, { ringAngle: Math.PI / 2 });
+      // A trapezoid in x–z (sloped underside), straight across the width: y = y0 + h(η + 1)/2.
+      const place = (y0: number, h: number) => {
+        const coordinates = new Float64Array(size);
+        referenceNodes(type).forEach(([xi, eta, zeta], a) => {
+          const x = 0.01 * (1 + xi!);
+          const bottom = 0.002 * (1 + xi!);
+          coordinates.set([x, y0 + (h * (eta! + 1)) / 2, bottom + (0.02 - bottom) * (0.5 * (zeta! + 1))], 3 * a);
+        });
+        return coordinates;
+      };
+      const parts = { none: new Float64Array(size * size), one: new Float64Array(size * size), two: new Float64Array(size * size), mass: new Float64Array(n * n) };
+      solidElementWidthParts(table, place(0, 2), c, 750, parts);
+      for (const h of [0.004, 0.0137]) {
+        const direct = new Float64Array(size * size);
+        const mass = new Float64Array(size * size);
+        solidElementMatrices(table, place(0.003, h), c, 750, direct, mass);
+        const split = widthScaledStiffness(parts, h, new Float64Array(size * size));
+        const scale = Math.max(...direct.map(Math.abs));
+        split.forEach((value, k) => expect(Math.abs(value - direct[k]!)).toBeLessThan(1e-12 * scale));
+        const massScale = Math.max(...mass.map(Math.abs));
+        for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) expect(Math.abs((h / 2) * parts.mass[a * n + b]! - mass[3 * a * size + 3 * b]!)).toBeLessThan(1e-12 * massScale);
+      }
     }
   });
 });

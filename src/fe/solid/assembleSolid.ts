@@ -3,7 +3,7 @@ import type { SparseSymmetricMatrix } from '../../eigen/SparseSymmetricMatrix.ts
 import type { SolidMaterial } from '../../material/solidElasticity.ts';
 import { hexahedronTable } from './hexahedronBasis.ts';
 import type { SolidBarMesh } from './solidBarMesh.ts';
-import { solidElementMatrices, solidElementScratch } from './solidElement.ts';
+import { isAxisAligned, solidElementMatrices, solidElementScratch, solidElementWidthParts, widthScaledStiffness } from './solidElement.ts';
 
 export type { SolidMaterial } from '../../material/solidElasticity.ts';
 
@@ -19,7 +19,7 @@ export interface SolidSystem {
   readonly dofCount: number;
   readonly stiffness: EnvelopeMatrix;
   readonly mass: SparseSymmetricMatrix;
-  /** How many element matrices were computed; the others were the same shape moved (reused). */
+  /** How many element computations were made; the other elements reused one (moved, or another width of the same slice). */
   readonly distinctElements: number;
 }
 
@@ -91,9 +91,11 @@ function positionOf(rowStart: Int32Array, columns: Int32Array, row: number, colu
 
 /**
  * Assembles K and M of a solid bar mesh (pipeline: mesh → element → assembly). Element matrices
- * come from solidElementMatrices at 3 × 3 × 3 Gauss points; an element that is the translate of
- * one already computed (every element across the width, and equal elements along uncut parts)
- * reuses its matrices, keyed by the node coordinates relative to its first node to a picometre.
+ * come from 3 × 3 × 3 Gauss points; an element that is the translate of one already computed
+ * (equal elements along uncut parts) reuses its matrices, keyed by the node coordinates relative
+ * to its first node to a picometre. For a material orthotropic in the bar's axes the key leaves
+ * out y, and every width across a slice comes from one split computation
+ * (solidElementWidthParts), since the mesh is affine across the width.
  * K goes into an envelope whose rows reach back to the first dof of the elements that hold
  * them; the consistent mass ρ∫N_aN_b dV is assembled node by node and expanded to the three
  * components (where the mirror plane leaves them free).
@@ -122,37 +124,64 @@ export function assembleSolidBar(mesh: SolidBarMesh, material: SolidMaterial): S
   const nodeMass = new Float64Array(neighbours.columns.length);
   const nodeMassDiagonal = new Float64Array(mesh.nodeCount);
   const table = hexahedronTable(mesh.element);
-  const scratch = solidElementScratch(n);
+  const scratch = solidElementScratch(n, table.pointCount);
   const coordinates = new Float64Array(size);
   const fullMass = new Float64Array(size * size);
-  const cache = new Map<string, { stiffness: Float64Array; mass: Float64Array }>();
+  const elementStiffness = new Float64Array(size * size);
+  const elementMass = new Float64Array(n * n);
+  // Axis-aligned materials: one computation per element shape in x and z, every width from it.
+  const aligned = isAxisAligned(material.stiffness);
+  type Cached = { stiffness: Float64Array; mass: Float64Array } | { none: Float64Array; one: Float64Array; two: Float64Array; mass: Float64Array };
+  const cache = new Map<string, Cached>();
   for (let e = 0; e < mesh.elementCount; e++) {
     const origin = mesh.connectivity[e * n]!;
     const keyParts: number[] = [];
+    let yMin = Infinity;
+    let yMax = -Infinity;
     for (let a = 0; a < n; a++) {
       const node = mesh.connectivity[e * n + a]!;
       for (let c = 0; c < 3; c++) {
         const value = mesh.coordinates[3 * node + c]!;
         coordinates[3 * a + c] = value;
-        if (a > 0) keyParts.push(keyPart(value - mesh.coordinates[3 * origin + c]!));
+        if (a > 0 && !(aligned && c === 1)) keyParts.push(keyPart(value - mesh.coordinates[3 * origin + c]!));
       }
+      yMin = Math.min(yMin, coordinates[3 * a + 1]!);
+      yMax = Math.max(yMax, coordinates[3 * a + 1]!);
     }
     const key = keyParts.join(',');
-    let matrices = cache.get(key);
-    if (!matrices) {
-      matrices = { stiffness: new Float64Array(size * size), mass: new Float64Array(n * n) };
-      solidElementMatrices(table, coordinates, material.stiffness, material.density, matrices.stiffness, fullMass, scratch);
-      // The mass is the same for each component: keep its scalar (node by node) block.
-      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) matrices.mass[a * n + b] = fullMass[3 * a * size + 3 * b]!;
-      cache.set(key, matrices);
+    let cached = cache.get(key);
+    if (!cached) {
+      if (aligned) {
+        // The element at width 2 (y = η + 1), where the split is computed.
+        for (let a = 0; a < n; a++) coordinates[3 * a + 1] = mesh.element.offsets[3 * a + 1]!;
+        cached = { none: new Float64Array(size * size), one: new Float64Array(size * size), two: new Float64Array(size * size), mass: new Float64Array(n * n) };
+        solidElementWidthParts(table, coordinates, material.stiffness, material.density, cached, scratch);
+      } else {
+        cached = { stiffness: new Float64Array(size * size), mass: new Float64Array(n * n) };
+        solidElementMatrices(table, coordinates, material.stiffness, material.density, cached.stiffness, fullMass, scratch);
+        // The mass is the same for each component: keep its scalar (node by node) block.
+        for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) cached.mass[a * n + b] = fullMass[3 * a * size + 3 * b]!;
+      }
+      cache.set(key, cached);
     }
-    envelopeAddElement(stiffness, elementDofs(e), matrices.stiffness);
+    let stiffnessBlock: Float64Array;
+    let massBlock: Float64Array;
+    if ('none' in cached) {
+      const width = yMax - yMin;
+      stiffnessBlock = widthScaledStiffness(cached, width, elementStiffness);
+      for (let k = 0; k < n * n; k++) elementMass[k] = (width / 2) * cached.mass[k]!;
+      massBlock = elementMass;
+    } else {
+      stiffnessBlock = cached.stiffness;
+      massBlock = cached.mass;
+    }
+    envelopeAddElement(stiffness, elementDofs(e), stiffnessBlock);
     for (let a = 0; a < n; a++) {
       const row = mesh.connectivity[e * n + a]!;
       for (let b = 0; b < n; b++) {
         const column = mesh.connectivity[e * n + b]!;
         if (column > row) continue;
-        const value = matrices.mass[a * n + b]!;
+        const value = massBlock[a * n + b]!;
         if (column === row) nodeMassDiagonal[row]! += value;
         else nodeMass[positionOf(neighbours.rowStart, neighbours.columns, row, column)]! += value;
       }
