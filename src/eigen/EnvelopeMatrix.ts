@@ -77,6 +77,29 @@ export function envelopeAddElement(matrix: EnvelopeMatrix, dofs: ArrayLike<numbe
   }
 }
 
+/**
+ * Adds the lower triangle of a·A + b·B + c·C for dense symmetric element matrices (row-major,
+ * `dofs.length` square) at the global dofs `dofs` (−1 skipped): three element parts combined and
+ * assembled in one pass over the lower triangle.
+ */
+export function envelopeAddCombination(matrix: EnvelopeMatrix, dofs: ArrayLike<number>, a: number, first: ArrayLike<number>, b: number, second: ArrayLike<number>, c: number, third: ArrayLike<number>): void {
+  const n = dofs.length;
+  const { data, rowOffset, firstColumn } = matrix;
+  for (let p = 0; p < n; p++) {
+    const i = dofs[p]!;
+    if (i < 0) continue;
+    const offset = rowOffset[i]!;
+    const start = firstColumn[i]!;
+    const row = p * n;
+    for (let q = 0; q < n; q++) {
+      const j = dofs[q]!;
+      if (j < 0 || j > i) continue;
+      if (j < start) throw new Error(`internal: element entry (${i}, ${j}) outside the envelope`);
+      data[offset + j]! += a * first[row + q]! + b * second[row + q]! + c * third[row + q]!;
+    }
+  }
+}
+
 /** y = A·x for a symmetric envelope matrix; writes into `out` (allocated when absent). */
 export function envelopeMultiply(matrix: EnvelopeMatrix, x: ArrayLike<number>, out = new Float64Array(matrix.size)): Float64Array {
   const { size, firstColumn, rowOffset, data } = matrix;

@@ -1,9 +1,9 @@
-import { createEnvelopeMatrix, envelopeAddElement, envelopeLayout, type EnvelopeMatrix } from '../../eigen/EnvelopeMatrix.ts';
+import { createEnvelopeMatrix, envelopeAddCombination, envelopeAddElement, envelopeLayout, type EnvelopeMatrix } from '../../eigen/EnvelopeMatrix.ts';
 import type { SparseSymmetricMatrix } from '../../eigen/SparseSymmetricMatrix.ts';
 import type { SolidMaterial } from '../../material/solidElasticity.ts';
 import { hexahedronTable } from './hexahedronBasis.ts';
 import type { SolidBarMesh } from './solidBarMesh.ts';
-import { isAxisAligned, solidElementMatrices, solidElementScratch, solidElementWidthParts, widthScaledStiffness } from './solidElement.ts';
+import { isAxisAligned, solidElementMatrices, solidElementScratch, solidElementWidthParts } from './solidElement.ts';
 
 export type { SolidMaterial } from '../../material/solidElasticity.ts';
 
@@ -47,49 +47,6 @@ function keyPart(value: number): number {
 }
 
 /**
- * The node-to-node pattern of a mesh: for each node, the lower-numbered nodes it shares an
- * element with, ascending (compressed rows).
- */
-function nodeNeighbours(mesh: SolidBarMesh): { rowStart: Int32Array; columns: Int32Array } {
-  const n = mesh.element.nodeCount;
-  const elementsOfNode: number[][] = Array.from({ length: mesh.nodeCount }, () => []);
-  for (let e = 0; e < mesh.elementCount; e++) for (let a = 0; a < n; a++) elementsOfNode[mesh.connectivity[e * n + a]!]!.push(e);
-  const mark = new Int32Array(mesh.nodeCount).fill(-1);
-  const rowStart = new Int32Array(mesh.nodeCount + 1);
-  const columns: number[] = [];
-  for (let node = 0; node < mesh.nodeCount; node++) {
-    const row: number[] = [];
-    for (const e of elementsOfNode[node]!) {
-      for (let a = 0; a < n; a++) {
-        const other = mesh.connectivity[e * n + a]!;
-        if (other < node && mark[other] !== node) {
-          mark[other] = node;
-          row.push(other);
-        }
-      }
-    }
-    row.sort((p, q) => p - q);
-    columns.push(...row);
-    rowStart[node + 1] = columns.length;
-  }
-  return { rowStart, columns: Int32Array.from(columns) };
-}
-
-/** Position of `column` in compressed row `row` (binary search; the column must be there). */
-function positionOf(rowStart: Int32Array, columns: Int32Array, row: number, column: number): number {
-  let lo = rowStart[row]!;
-  let hi = rowStart[row + 1]! - 1;
-  while (lo <= hi) {
-    const mid = (lo + hi) >> 1;
-    const value = columns[mid]!;
-    if (value === column) return mid;
-    if (value < column) lo = mid + 1;
-    else hi = mid - 1;
-  }
-  throw new Error(`internal: node ${column} is not a neighbour of node ${row}`);
-}
-
-/**
  * Assembles K and M of a solid bar mesh (pipeline: mesh → element → assembly). Element matrices
  * come from 3 × 3 × 3 Gauss points; an element that is the translate of one already computed
  * (equal elements along uncut parts) reuses its matrices, keyed by the node coordinates relative
@@ -120,14 +77,23 @@ export function assembleSolidBar(mesh: SolidBarMesh, material: SolidMaterial): S
     for (let k = 0; k < size; k++) if (d[k]! >= 0 && firstColumn[d[k]!]! > lowest) firstColumn[d[k]!] = lowest;
   }
   const stiffness = createEnvelopeMatrix(envelopeLayout(firstColumn));
-  const neighbours = nodeNeighbours(mesh);
-  const nodeMass = new Float64Array(neighbours.columns.length);
-  const nodeMassDiagonal = new Float64Array(mesh.nodeCount);
+  // The scalar mass node by node, in a node-level envelope (entry (A, B) at nodeOffset[A] + B).
+  const nodeFirst = Int32Array.from({ length: mesh.nodeCount }, (_, i) => i);
+  for (let e = 0; e < mesh.elementCount; e++) {
+    let lowest = mesh.nodeCount;
+    for (let a = 0; a < n; a++) lowest = Math.min(lowest, mesh.connectivity[e * n + a]!);
+    for (let a = 0; a < n; a++) {
+      const node = mesh.connectivity[e * n + a]!;
+      if (nodeFirst[node]! > lowest) nodeFirst[node] = lowest;
+    }
+  }
+  const nodeLayout = envelopeLayout(nodeFirst);
+  const nodeMass = new Float64Array(nodeLayout.entries);
+  const nodeOffset = nodeLayout.rowOffset;
   const table = hexahedronTable(mesh.element);
   const scratch = solidElementScratch(n, table.pointCount);
   const coordinates = new Float64Array(size);
   const fullMass = new Float64Array(size * size);
-  const elementStiffness = new Float64Array(size * size);
   const elementMass = new Float64Array(n * n);
   // Axis-aligned materials: one computation per element shape in x and z, every width from it.
   const aligned = isAxisAligned(material.stiffness);
@@ -164,49 +130,55 @@ export function assembleSolidBar(mesh: SolidBarMesh, material: SolidMaterial): S
       }
       cache.set(key, cached);
     }
-    let stiffnessBlock: Float64Array;
     let massBlock: Float64Array;
     if ('none' in cached) {
+      // K(h) = (h/2)·K₀ + K₁ + (2/h)·K₂, M(h) = (h/2)·M₀ (solidElementWidthParts).
       const width = yMax - yMin;
-      stiffnessBlock = widthScaledStiffness(cached, width, elementStiffness);
+      envelopeAddCombination(stiffness, elementDofs(e), width / 2, cached.none, 1, cached.one, 2 / width, cached.two);
       for (let k = 0; k < n * n; k++) elementMass[k] = (width / 2) * cached.mass[k]!;
       massBlock = elementMass;
     } else {
-      stiffnessBlock = cached.stiffness;
+      envelopeAddElement(stiffness, elementDofs(e), cached.stiffness);
       massBlock = cached.mass;
     }
-    envelopeAddElement(stiffness, elementDofs(e), stiffnessBlock);
     for (let a = 0; a < n; a++) {
       const row = mesh.connectivity[e * n + a]!;
+      const offset = nodeOffset[row]!;
       for (let b = 0; b < n; b++) {
         const column = mesh.connectivity[e * n + b]!;
-        if (column > row) continue;
-        const value = massBlock[a * n + b]!;
-        if (column === row) nodeMassDiagonal[row]! += value;
-        else nodeMass[positionOf(neighbours.rowStart, neighbours.columns, row, column)]! += value;
+        if (column <= row) nodeMass[offset + column]! += massBlock[a * n + b]!;
       }
     }
   }
-  // Expand the node-by-node mass to dofs (rows in dof order: nodes ascending, then components).
-  const rowStart = new Int32Array(dofCount + 1);
-  const columns: number[] = [];
-  const values: number[] = [];
-  const diagonal = new Float64Array(dofCount);
+  // Expand the node-by-node mass to dofs (rows in dof order: nodes ascending, then components;
+  // exact zeros left out).
+  let count = 0;
   for (let node = 0; node < mesh.nodeCount; node++) {
+    const offset = nodeOffset[node]!;
+    for (let other = nodeFirst[node]!; other < node; other++) if (nodeMass[offset + other] !== 0) count++;
+  }
+  const rowStart = new Int32Array(dofCount + 1);
+  const columns = new Int32Array(3 * count);
+  const values = new Float64Array(3 * count);
+  const diagonal = new Float64Array(dofCount);
+  let k = 0;
+  for (let node = 0; node < mesh.nodeCount; node++) {
+    const offset = nodeOffset[node]!;
     for (let c = 0; c < 3; c++) {
       const dof = nodeDofs[3 * node + c]!;
       if (dof < 0) continue;
-      diagonal[dof] = nodeMassDiagonal[node]!;
-      for (let k = neighbours.rowStart[node]!; k < neighbours.rowStart[node + 1]!; k++) {
-        const other = nodeDofs[3 * neighbours.columns[k]! + c]!;
-        if (other < 0) continue;
-        columns.push(other);
-        values.push(nodeMass[k]!);
+      diagonal[dof] = nodeMass[offset + node]!;
+      for (let other = nodeFirst[node]!; other < node; other++) {
+        const value = nodeMass[offset + other]!;
+        const column = nodeDofs[3 * other + c]!;
+        if (value === 0 || column < 0) continue;
+        columns[k] = column;
+        values[k++] = value;
       }
-      rowStart[dof + 1] = columns.length;
+      rowStart[dof + 1] = k;
     }
   }
-  const mass: SparseSymmetricMatrix = { size: dofCount, diagonal, rowStart, columns: Int32Array.from(columns), values: Float64Array.from(values) };
+  const mass: SparseSymmetricMatrix = { size: dofCount, diagonal, rowStart, columns: columns.slice(0, k), values: values.slice(0, k) };
   return { mesh, material, nodeDofs, dofCount, stiffness, mass, distinctElements: cache.size };
 }
 
