@@ -107,17 +107,32 @@ export function analyzeSolidBarModel(model: BarModel, options: AnalyzeOptions = 
       count += 2;
       bound = Math.max(bound, reach * 1.02);
     }
+    // The antisymmetric half up to the reach, and far enough for its first torsion and lateral
+    // modes (listed even beyond the reach, as the line model lists them): the line model's
+    // estimates with half an octave to spare, then more modes while either family is missing.
     const reach = reachOf(solidModesOf([symmetric]));
-    parts.push(symmetric, solveSolidPart(bar, 'antisymmetric', solidMeshFor('antisymmetric', options.solidMesh), { count: 1, upToHz: reach }, analysisTolerance));
-    found = solidModesOf(parts);
+    const firstOthers = Math.max(lineFrequencies(model, 'torsion', 1)[0]!, lineFrequencies(model, 'lateral', 1)[0]!);
+    let antisymmetricCount = 1;
+    for (;;) {
+      const antisymmetric = solveSolidPart(bar, 'antisymmetric', solidMeshFor('antisymmetric', options.solidMesh), { count: antisymmetricCount, upToHz: Math.max(reach, 1.41 * firstOthers) }, analysisTolerance);
+      found = solidModesOf([symmetric, antisymmetric]);
+      const has = (kind: SolidModeKind) => found.some((m) => m.kind === kind);
+      if ((has('torsion') && has('lateral')) || antisymmetricCount > 12) {
+        parts.push(symmetric, antisymmetric);
+        break;
+      }
+      antisymmetricCount += 3;
+    }
   } else {
+    const firstOthers = Math.max(lineFrequencies(model, 'torsion', 1)[0]!, lineFrequencies(model, 'lateral', 1)[0]!);
     let count = wantedBending + 2;
-    let bound = lineReach * 1.02;
+    let bound = Math.max(lineReach * 1.02, 1.41 * firstOthers);
     for (;;) {
       const full = solveSolidPart(bar, 'full', solidMeshFor('full', options.solidMesh), { count, upToHz: bound }, analysisTolerance);
       found = solidModesOf([full]);
       const reach = reachOf(found);
-      if (countBending(found) >= wantedBending && reach <= bound) {
+      const complete = found.some((m) => m.kind === 'torsion') && found.some((m) => m.kind === 'lateral');
+      if ((countBending(found) >= wantedBending && reach <= bound && complete) || count > wantedBending + 14) {
         parts.push(full);
         break;
       }

@@ -2,6 +2,7 @@
 // against the full body), layered: rigid motions, algebra, uniform bars, then wood.
 import { describe, expect, it } from 'vitest';
 import {
+  analyzeBar,
   assembleSolidBar,
   buildSolidBarMesh,
   envelopeEigenproblem,
@@ -9,6 +10,7 @@ import {
   isotropicStiffness,
   lowestModesOf,
   orthotropicStiffness,
+  parseBarFile,
   rectangleTorsionConstant,
   solidRigidModes,
   solveSolidBar,
@@ -170,6 +172,21 @@ describe('grain orientation', () => {
     });
     for (const spectrum of spectra.slice(1)) spectrum.slice(0, 6).forEach((hz, k) => expect(relative(hz, spectra[0]![k]!)).toBeLessThan(1e-7));
   });
+  it('an oblique ring angle (45°) is solved on the full body, says so, and puts each tuned partial between its radial and tangential values (the vertical plane’s shear modulus lies between G_LT and G_LR)', () => {
+    const file = (grain: object) =>
+      parseBarFile({ length_mm: 300, section: { shape: 'rect', width_mm: 40, thickness_mm: 20 }, profile_mm: [[0, 20], [90, 20], [150, 10], [210, 20], [300, 20]], material: { E_GPa: 12, E_R_GPa: 1.2, E_T_GPa: 0.6, G_LR_GPa: 0.95, G_LT_GPa: 0.75, G_RT_GPa: 0.25, density_kg_m3: 750 }, grain });
+    const coarse = { lengthElements: 12, halfWidthElements: 1, thicknessElements: 2 };
+    const solve = (grain: object) => analyzeBar(file(grain), { theory: 'solid', modes: 3, solidMesh: coarse });
+    const oblique = solve({ ring_angle_deg: 45 });
+    expect(oblique.mesh.solved_as).toBe('full body');
+    expect(oblique.notes?.[0]).toMatch(/full body/);
+    const radial = solve({ through_thickness: 'radial' });
+    const tangential = solve({ through_thickness: 'tangential' });
+    oblique.bending.forEach((mode, i) => {
+      expect(mode.hz).toBeLessThan(radial.bending[i]!.hz);
+      expect(mode.hz).toBeGreaterThan(tangential.bending[i]!.hz);
+    });
+  });
   it('radial against tangential moves each family the way the shear moduli say: vertical bending follows G_xz (G_LR radial > G_LT tangential), lateral and torsion of this wide bar follow G_xy (the other way)', () => {
     const solve = (degrees: number) => {
       const bar = { geometry, material: { stiffness: orthotropicStiffness(wood, { ringAngle: (degrees * Math.PI) / 180 }), density: 750 }, mirrorSymmetric: true };
@@ -186,5 +203,21 @@ describe('grain orientation', () => {
       const t = frequenciesOf(tangential, kind)[0]!;
       expect(r > t).toBe(radialHigher);
     }
+  });
+});
+
+describe('line model against solid model on slender uniform bars (the output line_model_cents)', () => {
+  // 0.3 % = 5.19 cents.
+  const limit = 1200 * Math.log2(1.003);
+  it('steel 600 × 20 × 10 mm: every listed bending, torsion and lateral mode within 0.3 % (measured ≤ 0.15 %)', () => {
+    const analysis = analyzeBar(parseBarFile({ length_mm: 600, section: { shape: 'rect', width_mm: 20, thickness_mm: 10 }, material: { preset: 'steel-carbon' } }), { theory: 'solid', modes: 3 });
+    for (const family of ['bending', 'torsion', 'lateral'] as const) {
+      expect(analysis[family].length).toBeGreaterThan(0);
+      for (const mode of analysis[family]) expect(Math.abs(mode.line_model_cents!)).toBeLessThan(limit);
+    }
+  });
+  it('wood 500 × 40 × 12 mm, radial grain: the tuned partials 1–3 within 0.3 % (the line model’s G is the vertical plane’s; measured ≤ 0.11 %)', () => {
+    const analysis = analyzeBar(parseBarFile({ length_mm: 500, section: { shape: 'rect', width_mm: 40, thickness_mm: 12 }, material: { E_GPa: 12, E_R_GPa: 1.2, E_T_GPa: 0.6, G_LR_GPa: 0.95, G_LT_GPa: 0.75, G_RT_GPa: 0.25, density_kg_m3: 750 } }), { theory: 'solid', modes: 3 });
+    for (const mode of analysis.bending) expect(Math.abs(mode.line_model_cents!)).toBeLessThan(limit);
   });
 });

@@ -19,8 +19,20 @@ export const materialsCommand: Command = {
       const shear = p.G_GPa ?? p.E_GPa / (2 * (1 + p.poisson));
       rows.push([p.name, fixed(p.E_GPa, 1), `${fixed(shear, 2)}${p.G_GPa === undefined ? ' (from ν)' : ''}`, fixed(p.poisson, 2), fixed(p.density_kg_m3, 0), p.label]);
     }
-    const sources = materialPresets.map((p) => `${p.name}:\n  E: ${p.sources.E}\n  G: ${p.sources.G}\n  density: ${p.sources.density}\n  ν: ${p.sources.poisson}`);
-    io.stdout(`${formatTable(rows)}\n\nSources\n${sources.join('\n')}\n\nWood varies ±20 % from blank to blank: calibrate from the blank's measured partials.`);
+    const woods = materialPresets.filter((p) => p.orthotropic);
+    const orthotropic = formatTable([
+      ['preset', 'E_L', 'E_R', 'E_T', 'G_LR', 'G_LT', 'G_RT', 'ν_LR', 'ν_LT', 'ν_RT'],
+      ...woods.map((p) => {
+        const c = p.orthotropic!;
+        return [p.name, ...[c.E_GPa, c.E_R_GPa, c.E_T_GPa, c.G_LR_GPa, c.G_LT_GPa, c.G_RT_GPa].map((v) => fixed(v, 3)), ...[c.nu_LR, c.nu_LT, c.nu_RT].map((v) => fixed(v, 2))];
+      }),
+    ]);
+    const sources = materialPresets.map(
+      (p) => `${p.name}:\n  E: ${p.sources.E}\n  G: ${p.sources.G}\n  density: ${p.sources.density}\n  ν: ${p.sources.poisson}${p.sources.orthotropic ? `\n  orthotropic set: ${p.sources.orthotropic}` : ''}`,
+    );
+    io.stdout(
+      `${formatTable(rows)}\n\nOrthotropic sets of the woods for the solid theory (GPa; radial grain: G = G_LR)\n${orthotropic}\n\nSources\n${sources.join('\n')}\n\nWood varies ±20 % from blank to blank: calibrate from the blank's measured partials.`,
+    );
     return 0;
   },
 };
