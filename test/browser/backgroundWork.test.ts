@@ -90,6 +90,10 @@ describe('background work in Chromium', () => {
     // The design of A4 takes seconds (about 5 s in Node on this machine); move on while it runs.
     await page.locator('bw-shape-view progress[aria-label="Planning progress"]').waitFor();
     await pickBar(page, 'bw-shape-view', 'bar-E5');
+    // The switch came while A4's design was still running: nothing stored yet, and E5's view says
+    // where A4's plan will go.
+    expect((await storedBar(page, 'bar-A4')).design ?? null).toBeNull();
+    await expect.poll(() => page.locator('[data-testid="other-plans"]').innerText()).toMatch(/Still planning A4.*kept with A4/);
 
     // Wait until a plan is stored on either bar, then see which one it is.
     const planned = async () => [(await storedBar(page, 'bar-A4')).design ?? null, (await storedBar(page, 'bar-E5')).design ?? null].filter(Boolean).length;
@@ -111,7 +115,7 @@ describe('background work in Chromium', () => {
     // Two undercut designs on the page's solver (the demo's A4 and E5 blanks), then the first is
     // cancelled. Run inside the page through the workbench's own worker client (served by Vite).
     const outcomes = (await page.evaluate(`(async () => {
-      const { longSolver } = await import('/worker/SolverClient.ts');
+      const { solver } = await import('/worker/SolverClient.ts');
       const stored = await new Promise((resolve, reject) => {
         const open = indexedDB.open('barwright-workbench');
         open.onerror = () => reject(open.error);
@@ -123,11 +127,11 @@ describe('background work in Chromium', () => {
       });
       const design = (id) => {
         const bar = stored.bars.find((candidate) => candidate.id === id);
-        return { kind: 'design', bar: bar.current, target: { note: bar.note, a4: stored.instrument.a4_hz, ratios: [1, 4, 10], tolerance_cents: [2, 5, 15] }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } };
+        return { bar: bar.current, target: { note: bar.note, a4: stored.instrument.a4_hz, ratios: [1, 4, 10], tolerance_cents: [2, 5, 15] }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } };
       };
       const first = new AbortController();
-      const cancelled = longSolver.request(design('bar-A4'), { signal: first.signal });
-      const kept = longSolver.request(design('bar-E5'));
+      const cancelled = solver.request('design', design('bar-A4'), { signal: first.signal });
+      const kept = solver.request('design', design('bar-E5'));
       await new Promise((resolve) => setTimeout(resolve, 300));
       first.abort();
       const [a, b] = await Promise.all([cancelled, kept]);
@@ -138,6 +142,30 @@ describe('background work in Chromium', () => {
     expect(outcomes.keptLength).toBe(outcomes.e5Length);
     await context.close();
   });
+
+  it('cancel one of two plans in the shape view: the other plan completes and is stored on its bar', async () => {
+    const { context, page } = await freshPage();
+    await openView(page, 'shape/bar-A4');
+    // A4's design takes seconds; E5's about one second (measured in Node on this machine).
+    await page.getByRole('button', { name: 'Plan the undercut' }).click();
+    await page.locator('bw-shape-view progress[aria-label="Planning progress"]').waitFor();
+    await pickBar(page, 'bw-shape-view', 'bar-E5');
+    await expect.poll(() => page.locator('[data-testid="other-plans"]').innerText()).toMatch(/Still planning A4/);
+    await page.getByRole('button', { name: 'Plan the undercut' }).click();
+    await page.getByRole('button', { name: 'Cancel the plan for A4' }).click();
+    await expect.poll(() => page.locator('[data-testid="other-plans"]').count()).toBe(0);
+
+    await expect.poll(async () => (await storedBar(page, 'bar-E5')).design ?? null, { timeout: 60_000, interval: 500 }).not.toBeNull();
+    await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor();
+    const e5 = await storedBar(page, 'bar-E5');
+    expect(e5.design!.bar.length_mm).toBe(e5.current.length_mm);
+    expect((await storedBar(page, 'bar-A4')).design ?? null).toBeNull();
+    // Back on A4: its plan shows as cancelled, and a new one can be started.
+    await pickBar(page, 'bw-shape-view', 'bar-A4');
+    await expect.poll(() => page.locator('bw-shape-view').getByRole('status').allInnerTexts()).toContain('Cancelled.');
+    expect(await page.getByRole('button', { name: 'Plan the undercut' }).isEnabled()).toBe(true);
+    await context.close();
+  }, 120_000);
 
   it('a reading of 110.037 Hz is stored as entered, typed or heard', async () => {
     const { context, page } = await freshPage();
