@@ -6,3 +6,4 @@ export * from './EnvelopeMatrix.ts';
 export * from './envelopeLdlt.ts';
 export * from './GeneralizedEigenproblem.ts';
 export * from './SparseSymmetricMatrix.ts';
+export * from './denseCholesky.ts';

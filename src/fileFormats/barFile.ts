@@ -1,28 +1,14 @@
 import { InputError } from './InputError.ts';
-import { isMaterialPresetName, materialPresetNames } from './materialPresetNames.ts';
-import { resolveWoodConstants, woodConstantFields, type BarFileGrain, type WoodConstantField } from './woodConstants.ts';
+import { parseBarFileGrain, parseBarFileMaterial, type BarFileGrain, type BarFileMaterial } from './barFileMaterial.ts';
+import { isWoodMaterial, resolveWoodConstants } from './woodConstants.ts';
+
+export type { BarFileGrain, BarFileMaterial } from './barFileMaterial.ts';
 
 /** The bar file's section, in millimetres (contract: `*.bar.json`). */
 export type BarFileSection =
   | { shape: 'rect'; width_mm: number; thickness_mm: number }
   | { shape: 'tube'; outer_diameter_mm: number; wall_mm: number }
   | { shape: 'round'; diameter_mm: number };
-
-/**
- * The bar file's material: explicit values (GPa, kg/m³) or a preset name. For wood, the optional
- * orthotropic constants (`E_R_GPa` … `nu_RT`, see woodConstants.ts); `pitch_cents_per_c`: how
- * the partials move per °C (checked here, used by the temperature features).
- */
-export type BarFileMaterial =
-  | ({
-      E_GPa: number;
-      density_kg_m3: number;
-      G_GPa?: number;
-      poisson?: number;
-      shear_coefficient?: number;
-      pitch_cents_per_c?: number;
-    } & Partial<Record<WoodConstantField, number>>)
-  | { preset: string; shear_coefficient?: number; pitch_cents_per_c?: number };
 
 /** A bar file (`*.bar.json`, format `barwright.bar` version 1), exactly as the contract gives it. */
 export interface BarFile {
@@ -34,11 +20,20 @@ export interface BarFile {
   /** `[position_mm, thickness_mm]` pairs, rect only; absent means a uniform blank. */
   profile_mm?: [number, number][];
   material: BarFileMaterial;
-  /** How the growth rings run through the section (default radial through the thickness). */
+  /** How the growth rings run through the thickness (rect wooden bars; default radial). */
   grain?: BarFileGrain;
+  /** The board or batch the bar was cut from. */
+  lot?: string;
+  /** Cord holes drilled across the width (rect only). */
+  holes?: BarFileHole[];
 }
 
-export type { BarFileGrain } from './woodConstants.ts';
+/** A cord hole drilled across the width, mm: its centre's position from the left end, its diameter, and its height above the underside (default: centred in the thickness there). */
+export interface BarFileHole {
+  x_mm: number;
+  diameter_mm: number;
+  z_mm?: number;
+}
 
 type Json = Record<string, unknown>;
 
@@ -74,86 +69,6 @@ function parseSection(source: string, value: unknown): BarFileSection {
   }
 }
 
-function parseShearCoefficient(source: string, value: unknown): number | undefined {
-  if (value === undefined) return undefined;
-  if (typeof value !== 'number' || !Number.isFinite(value) || value <= 0 || value > 1)
-    throw new InputError(source, 'material.shear_coefficient', `must be a number greater than 0 and at most 1 (got ${JSON.stringify(value)})`);
-  return value;
-}
-
-function parsePoisson(source: string, value: unknown): number | undefined {
-  if (value === undefined) return undefined;
-  if (typeof value !== 'number' || !Number.isFinite(value) || value <= -1 || value >= 0.5)
-    throw new InputError(source, 'material.poisson', `must be a number between -1 and 0.5 (got ${JSON.stringify(value)})`);
-  return value;
-}
-
-function parsePitchPerDegree(source: string, value: unknown): number | undefined {
-  if (value === undefined) return undefined;
-  if (typeof value !== 'number' || !Number.isFinite(value) || Math.abs(value) > 50)
-    throw new InputError(source, 'material.pitch_cents_per_c', `must be a number of cents per °C between -50 and 50 (got ${JSON.stringify(value)})`);
-  return value;
-}
-
-/** The grain orientation: `{ "through_thickness": "radial" | "tangential" }` or `{ "ring_angle_deg": 0 … 90 }`. */
-function parseGrain(source: string, value: unknown): BarFileGrain {
-  if (!isObject(value)) throw new InputError(source, 'grain', 'must be an object with "through_thickness" ("radial" or "tangential") or "ring_angle_deg"');
-  const hasThrough = value.through_thickness !== undefined;
-  const hasAngle = value.ring_angle_deg !== undefined;
-  if (hasThrough === hasAngle) throw new InputError(source, 'grain', 'give exactly one of "through_thickness" ("radial" or "tangential") and "ring_angle_deg"');
-  if (hasThrough) {
-    if (value.through_thickness !== 'radial' && value.through_thickness !== 'tangential')
-      throw new InputError(source, 'grain.through_thickness', `must be "radial" or "tangential" (got ${JSON.stringify(value.through_thickness)})`);
-    return { through_thickness: value.through_thickness };
-  }
-  const angle = value.ring_angle_deg;
-  if (typeof angle !== 'number' || !Number.isFinite(angle) || angle < 0 || angle > 90)
-    throw new InputError(source, 'grain.ring_angle_deg', `must be the growth rings' angle to the thickness direction, from 0 to 90 degrees (got ${JSON.stringify(angle)})`);
-  return { ring_angle_deg: angle };
-}
-
-/** True when an explicit material is wood for the solid model: orthotropic constants or a grain given, or E/G above 3 (an isotropic solid has E/G = 2(1 + ν) < 3). */
-export function isWoodMaterial(material: BarFileMaterial, grain: BarFileGrain | undefined): boolean {
-  if ('preset' in material) return false;
-  if (grain !== undefined || woodConstantFields.some((field) => material[field] !== undefined)) return true;
-  return material.G_GPa !== undefined && material.E_GPa / material.G_GPa > 3;
-}
-
-function parseMaterial(source: string, value: unknown, grain: BarFileGrain | undefined): BarFileMaterial {
-  if (!isObject(value)) throw new InputError(source, 'material', 'must be an object with E_GPa and density_kg_m3, or a preset');
-  const shear_coefficient = parseShearCoefficient(source, value.shear_coefficient);
-  const pitch_cents_per_c = parsePitchPerDegree(source, value.pitch_cents_per_c);
-  if (value.preset !== undefined) {
-    if (!isMaterialPresetName(value.preset))
-      throw new InputError(source, 'material.preset', `unknown preset ${JSON.stringify(value.preset)} (known: ${materialPresetNames.join(', ')})`);
-    const fromPreset = woodConstantFields.find((field) => value[field] !== undefined);
-    if (fromPreset) throw new InputError(source, `material.${fromPreset}`, 'a preset carries its own constants: give E_GPa and the constants instead of a preset');
-    return {
-      preset: value.preset,
-      ...(shear_coefficient === undefined ? {} : { shear_coefficient }),
-      ...(pitch_cents_per_c === undefined ? {} : { pitch_cents_per_c }),
-    };
-  }
-  const material: BarFileMaterial = {
-    E_GPa: positiveNumber(source, 'material.E_GPa', value.E_GPa, 'GPa'),
-    density_kg_m3: positiveNumber(source, 'material.density_kg_m3', value.density_kg_m3, 'kg/m³'),
-  };
-  if (value.G_GPa !== undefined) material.G_GPa = positiveNumber(source, 'material.G_GPa', value.G_GPa, 'GPa');
-  const poisson = parsePoisson(source, value.poisson);
-  if (poisson !== undefined) material.poisson = poisson;
-  if (shear_coefficient !== undefined) material.shear_coefficient = shear_coefficient;
-  if (pitch_cents_per_c !== undefined) material.pitch_cents_per_c = pitch_cents_per_c;
-  for (const field of woodConstantFields) {
-    if (value[field] === undefined) continue;
-    material[field] = positiveNumber(source, `material.${field}`, value[field], field.endsWith('_GPa') ? 'GPa' : '');
-  }
-  if (isWoodMaterial(material, grain)) {
-    const resolved = resolveWoodConstants(material, grain);
-    if ('rule' in resolved) throw new InputError(source, resolved.field, resolved.rule);
-  }
-  return material;
-}
-
 /** Absolute slack (mm) when comparing a profile's ends and thicknesses with the blank's. */
 const profileSlackMm = 1e-9;
 
@@ -181,6 +96,51 @@ function parseProfile(source: string, value: unknown, length: number, blankThick
   return profile;
 }
 
+/** Longest lot name (characters). */
+const lotLimit = 200;
+
+/** Thickness (mm) of a bar at x (mm): the profile, linear between stations, or the blank. */
+function thicknessAtMm(bar: BarFile, x: number): number {
+  const section = bar.section;
+  if (section.shape !== 'rect') return 0;
+  const profile = bar.profile_mm;
+  if (!profile) return section.thickness_mm;
+  for (let k = 1; k < profile.length; k++) {
+    const [x0, t0] = profile[k - 1]!;
+    const [x1, t1] = profile[k]!;
+    if (x <= x1) return t0 + ((t1 - t0) * (x - x0)) / (x1 - x0);
+  }
+  return profile[profile.length - 1]![1];
+}
+
+function parseHoles(source: string, value: unknown, bar: BarFile): BarFileHole[] {
+  if (bar.section.shape !== 'rect') throw new InputError(source, 'holes', `only a rect bar is drilled for cords across its width (this bar is a ${bar.section.shape})`);
+  if (!Array.isArray(value)) throw new InputError(source, 'holes', 'must be a list such as [{ "x_mm": 88, "diameter_mm": 6 }]');
+  return value.map((item: unknown, index) => {
+    const field = `holes[${index}]`;
+    if (!isObject(item)) throw new InputError(source, field, 'must be an object with x_mm and diameter_mm (and optionally z_mm)');
+    const diameter = positiveNumber(source, `${field}.diameter_mm`, item.diameter_mm, 'mm');
+    const x = item.x_mm;
+    if (typeof x !== 'number' || !Number.isFinite(x)) throw new InputError(source, `${field}.x_mm`, 'must be a number in mm');
+    if (x - diameter / 2 < 0 || x + diameter / 2 > bar.length_mm) throw new InputError(source, `${field}.x_mm`, `a ${diameter} mm hole at ${x} mm does not fit on the ${bar.length_mm} mm bar`);
+    const thickness = Math.min(thicknessAtMm(bar, x - diameter / 2), thicknessAtMm(bar, x), thicknessAtMm(bar, x + diameter / 2));
+    const hole: BarFileHole = { x_mm: x, diameter_mm: diameter };
+    let z = thickness / 2;
+    if (item.z_mm !== undefined) {
+      z = positiveNumber(source, `${field}.z_mm`, item.z_mm, 'mm');
+      hole.z_mm = z;
+    }
+    if (z - diameter / 2 <= 0 || z + diameter / 2 >= thickness)
+      throw new InputError(source, `${field}.diameter_mm`, `a ${diameter} mm hole ${item.z_mm === undefined ? 'centred' : `at ${z} mm above the underside`} breaks out of the bar, which is ${roundTo(thickness)} mm thick there`);
+    return hole;
+  });
+}
+
+/** `value` to 0.01 (for messages). */
+function roundTo(value: number): number {
+  return Math.round(value * 100) / 100;
+}
+
 /**
  * Validates a parsed JSON value as a bar file and returns it typed. Throws InputError naming
  * `source` (a file name), the field and the rule broken, e.g.
@@ -195,8 +155,13 @@ export function parseBarFile(value: unknown, source = 'bar'): BarFile {
   if (value.label !== undefined && typeof value.label !== 'string') throw new InputError(source, 'label', 'must be a string');
   const length_mm = positiveNumber(source, 'length_mm', value.length_mm, 'mm');
   const section = parseSection(source, value.section);
-  const grain = value.grain === undefined ? undefined : parseGrain(source, value.grain);
-  const material = parseMaterial(source, value.material, grain);
+  const grain = parseBarFileGrain(source, value.grain);
+  const material = parseBarFileMaterial(source, value.material, grain);
+  if (!('preset' in material) && isWoodMaterial(material, grain)) {
+    // The solid model completes a wooden material from ratio tables: the completed set must hold too.
+    const resolved = resolveWoodConstants(material, grain);
+    if ('rule' in resolved) throw new InputError(source, resolved.field, resolved.rule);
+  }
   let profile_mm: [number, number][] | undefined;
   if (value.profile_mm !== undefined) {
     if (section.shape !== 'rect') throw new InputError(source, 'profile_mm', `only a rect section can have a profile (this bar is a ${section.shape})`);
@@ -210,7 +175,15 @@ export function parseBarFile(value: unknown, source = 'bar'): BarFile {
     section,
     ...(profile_mm ? { profile_mm } : {}),
     material,
-    ...(grain ? { grain } : {}),
   };
+  if (grain) {
+    if (section.shape !== 'rect') throw new InputError(source, 'grain', `only a rect (wooden) bar has a grain orientation (this bar is a ${section.shape})`);
+    bar.grain = grain;
+  }
+  if (value.lot !== undefined) {
+    if (typeof value.lot !== 'string' || value.lot.trim() === '' || value.lot.length > lotLimit) throw new InputError(source, 'lot', `must be a name of 1 to ${lotLimit} characters`);
+    bar.lot = value.lot;
+  }
+  if (value.holes !== undefined) bar.holes = parseHoles(source, value.holes, bar);
   return bar;
 }

@@ -16,19 +16,19 @@ export interface OrthotropicElasticity {
 }
 
 /**
- * How the growth rings run through a bar's cross-section: the angle (radians) between the
- * tangential direction T and the thickness direction, in the plane of the cross-section.
- * 0: T runs through the thickness (`"tangential"`); π/2: R runs through the thickness
- * (`"radial"`). L is always along the bar.
+ * How the growth rings run through a bar's cross-section, as the bar file gives it (ring_angle_deg):
+ * the angle (radians) between the radial direction R and the thickness direction, in the plane of
+ * the cross-section. 0: R runs through the thickness (`"radial"`, the default); π/2: T does
+ * (`"tangential"`). L is always along the bar.
  */
 export interface GrainOrientation {
   readonly ringAngle: number;
 }
 
 /** R through the thickness (the bar file's `"through_thickness": "radial"`, its default). */
-export const radialThroughThickness: GrainOrientation = { ringAngle: Math.PI / 2 };
+export const radialThroughThickness: GrainOrientation = { ringAngle: 0 };
 /** T through the thickness (`"through_thickness": "tangential"`). */
-export const tangentialThroughThickness: GrainOrientation = { ringAngle: 0 };
+export const tangentialThroughThickness: GrainOrientation = { ringAngle: Math.PI / 2 };
 
 /**
  * A 6 × 6 elastic stiffness in Voigt form (row-major, Pa): σ = C·ε with
@@ -122,7 +122,7 @@ export function invertSix(matrix: ArrayLike<number>): Float64Array {
 
 /**
  * The rotation Q (3 × 3, row-major) whose columns are the material axes L, R, T in the bar's
- * axes (x along, y across, z up): L = x, T = cos α·z + sin α·y, R = cos α·y − sin α·z for the
+ * axes (x along, y across, z up): L = x, R = cos α·z + sin α·y, T = cos α·y − sin α·z for the
  * ring angle α of the orientation.
  */
 export function grainAxes(orientation: GrainOrientation): Float64Array {
@@ -132,7 +132,7 @@ export function grainAxes(orientation: GrainOrientation): Float64Array {
   const c = snap(Math.cos(orientation.ringAngle));
   const s = snap(Math.sin(orientation.ringAngle));
   // Rows x, y, z; columns L, R, T.
-  return Float64Array.of(1, 0, 0, 0, c, s, 0, -s, c);
+  return Float64Array.of(1, 0, 0, 0, s, c, 0, c, -s);
 }
 
 /**
@@ -201,6 +201,7 @@ export function isotropicStiffness(youngModulus: number, poisson: number): Voigt
  * The shear moduli a beam sees in the bar's two bending planes for this grain orientation:
  * vertical (x–z plane, 1/S′_xz,xz) and lateral (x–y plane, 1/S′_xy,xy), from the rotated
  * compliance. Radial through the thickness gives G_LR and G_LT; tangential, G_LT and G_LR.
+ * (An independent route to the bar file's verticalShearModulusGPa.)
  */
 export function bendingPlaneShearModuli(constants: OrthotropicElasticity, orientation: GrainOrientation): { vertical: number; lateral: number } {
   const compliance = invertSix(orthotropicStiffness(constants, orientation));

@@ -1,4 +1,5 @@
 import { resolveWoodConstants } from '../fileFormats/woodConstants.ts';
+import { gigapascal as GPa } from '../units/units.ts';
 import type { Material } from './Material.ts';
 import { grainIsAligned, isotropicStiffness, orthotropicStiffness, radialThroughThickness, type OrthotropicElasticity, type VoigtStiffness } from './orthotropicStiffness.ts';
 
@@ -21,7 +22,6 @@ export interface SolidMaterialChoice {
   readonly constants?: OrthotropicElasticity;
 }
 
-const GPa = 1e9;
 
 /**
  * The solid model's material for a Material: its `elasticity` when it has one, otherwise (a

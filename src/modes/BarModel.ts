@@ -2,11 +2,13 @@ import type { Material, MaterialElasticity } from '../material/Material.ts';
 import type { GrainOrientation } from '../material/orthotropicStiffness.ts';
 import { orthotropicFromGPa } from '../material/solidElasticity.ts';
 import { InputError } from '../fileFormats/InputError.ts';
-import { bendingPlaneShear, resolveWoodConstants, ringAngleDegrees, type BarFileGrain } from '../fileFormats/woodConstants.ts';
+import { ringAngleDegrees, type BarFileGrain } from '../fileFormats/barFileMaterial.ts';
+import { isWoodMaterial, resolveWoodConstants, verticalShearOf } from '../fileFormats/woodConstants.ts';
 import { findMaterialPreset } from '../material/materialPresets.ts';
-import { isWoodMaterial, type BarFile, type BarFileMaterial, type BarFileSection } from '../fileFormats/barFile.ts';
-import type { Section } from '../section/Section.ts';
+import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
+import { sectionDepth, type Section } from '../section/Section.ts';
 import { uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
+import { millimetre as mm, gigapascal as GPa } from '../units/units.ts';
 
 /** A bar in SI units, ready for the solver: length (m), section, thickness profile, material. */
 export interface BarModel {
@@ -16,9 +18,6 @@ export interface BarModel {
   readonly profile: ThicknessProfile;
   readonly material: Material;
 }
-
-const mm = 1e-3;
-const GPa = 1e9;
 
 /** The section of a bar file in SI. */
 export function sectionFromFile(section: BarFileSection): Section {
@@ -55,7 +54,7 @@ export function materialFromFile(material: BarFileMaterial, grain?: BarFileGrain
     G = preset.G_GPa === undefined ? undefined : preset.G_GPa * GPa;
     if (preset.orthotropic) {
       const set = preset.orthotropic;
-      G = bendingPlaneShear(set.G_LR_GPa, set.G_LT_GPa, ringAngleDegrees(grain)).vertical * GPa;
+      G = verticalShearOf(set, grain) * GPa;
       elasticity = { kind: 'orthotropic', constants: orthotropicFromGPa(set), grain: grainOrientation(grain), assumed: [] };
     } else {
       elasticity = { kind: 'isotropic', youngModulus: E, poisson, assumed: [] };
@@ -69,7 +68,7 @@ export function materialFromFile(material: BarFileMaterial, grain?: BarFileGrain
       const resolved = resolveWoodConstants(material, grain);
       if ('rule' in resolved) throw new InputError('bar', resolved.field, resolved.rule);
       const set = resolved.constants;
-      G ??= bendingPlaneShear(set.G_LR_GPa, set.G_LT_GPa, ringAngleDegrees(grain)).vertical * GPa;
+      G ??= verticalShearOf(set, grain) * GPa;
       elasticity = { kind: 'orthotropic', constants: orthotropicFromGPa(set), grain: grainOrientation(grain), assumed: resolved.assumed };
     } else {
       const isotropicPoisson = material.poisson ?? (G === undefined ? 0.3 : E / (2 * G) - 1);
@@ -98,7 +97,7 @@ export function barModelFromFile(bar: BarFile): BarModel {
       thicknesses: Float64Array.from(bar.profile_mm, ([, t]) => t * mm),
     };
   } else {
-    profile = uniformProfile(length, section.shape === 'rect' ? section.thickness : section.shape === 'round' ? section.diameter : section.outerDiameter);
+    profile = uniformProfile(length, sectionDepth(section));
   }
   return { length, section, profile, material: materialFromFile(bar.material, bar.grain) };
 }

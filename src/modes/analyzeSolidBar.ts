@@ -1,5 +1,6 @@
 import { buildMesh } from '../fe/buildMesh.ts';
 import { hardwoodRatiosSource } from '../fileFormats/woodConstants.ts';
+import { gigapascal as GPa, millimetre } from '../units/units.ts';
 import { solidMaterialOf, type SolidMaterialChoice } from '../material/solidElasticity.ts';
 import type { BarModel } from './BarModel.ts';
 import type { AnalyzeOptions, BarAnalysis, ModeResult, SolidMaterialSummary } from './BarAnalysis.ts';
@@ -37,7 +38,6 @@ function lineFrequencies(model: BarModel, kind: SolidModeKind, count: number): F
 }
 
 function materialSummary(model: BarModel, choice: SolidMaterialChoice): SolidMaterialSummary {
-  const GPa = 1e9;
   const round = (v: number) => +v.toPrecision(4);
   const elasticity = model.material.elasticity;
   if (choice.kind === 'isotropic' || !choice.constants) {
@@ -45,8 +45,8 @@ function materialSummary(model: BarModel, choice: SolidMaterialChoice): SolidMat
     return { model: 'isotropic', constants: { E_GPa: round(model.material.youngModulus / GPa), poisson: round(poisson) }, assumed: choice.assumed.map((f) => (f === 'poisson' ? 'poisson (0.3, the bar file default)' : f)) };
   }
   const c = choice.constants;
-  const angle = elasticity?.kind === 'orthotropic' ? (elasticity.grain.ringAngle * 180) / Math.PI : 90;
-  const grain = Math.abs(angle - 90) < 1e-9 ? 'radial' : Math.abs(angle) < 1e-9 ? 'tangential' : `ring angle ${round(angle)}°`;
+  const angle = elasticity?.kind === 'orthotropic' ? (elasticity.grain.ringAngle * 180) / Math.PI : 0;
+  const grain = Math.abs(angle) < 1e-9 ? 'radial' : Math.abs(angle - 90) < 1e-9 ? 'tangential' : `ring angle ${round(angle)}°`;
   return {
     model: 'orthotropic',
     grain,
@@ -155,12 +155,12 @@ export function analyzeSolidBarModel(model: BarModel, options: AnalyzeOptions = 
     const line = kind === 'bending' ? lineBending : lineFrequencies(model, kind, list.length);
     results[kind] = list.map((m, i) => {
       const lineHz = line[i];
-      const nodal = Array.from(m.nodalLines, (x) => x * 1000);
+      const nodal = Array.from(m.nodalLines, (x) => x / millimetre);
       const result: ModeResult = { mode: m.index, hz: m.hz, ratio: m.hz / fundamental, kind, purity: m.purity, line_model_cents: lineHz === undefined ? null : 1200 * Math.log2(lineHz / m.hz), nodal_lines_mm: nodal };
       if (kind === 'bending') result.nodes_mm = nodal;
       if (options.shapes) {
         const shape = sampleShape(model.length, shapePoints, (x) => interpolate(m.slices, m.curve, x));
-        result.shape = { x_mm: Array.from(shape.x, (x) => x * 1000), displacement: Array.from(shape.value) };
+        result.shape = { x_mm: Array.from(shape.x, (x) => x / millimetre), displacement: Array.from(shape.value) };
       }
       return result;
     });

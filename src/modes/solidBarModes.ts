@@ -1,9 +1,9 @@
 import { assembleSolidBar, solidRigidModes, type SolidMaterial, type SolidSystem } from '../fe/solid/assembleSolid.ts';
 import { buildSolidBarMesh, type SolidBarGeometry, type SolidMeshOptions, type SolidPart } from '../fe/solid/solidBarMesh.ts';
 import { envelopeEigenproblem } from '../eigen/GeneralizedEigenproblem.ts';
-import { lowestModesOf } from '../eigen/lowestModes.ts';
 import { invertSix } from '../material/orthotropicStiffness.ts';
 import { classifySolidMode, topFaceNodalLines, type SolidModeKind } from './solidModeShape.ts';
+import { solveFreeModesOf } from './solveFreeModes.ts';
 
 /** A rectangular bar as an elastic solid: its geometry (SI) and material in the bar's axes. */
 export interface SolidBar {
@@ -111,20 +111,19 @@ function firstEigenvalueEstimate(bar: SolidBar): number {
 
 /**
  * Free–free modes of one part of a solid bar on a given mesh (pipeline: mesh → assembly →
- * envelope LDLᵀ of K − σM → shift-invert Lanczos with the part's rigid motions deflated).
- * σ = −0.1 × an Euler–Bernoulli estimate of the first bending eigenvalue.
+ * envelope LDLᵀ of K − σM → shift-invert Lanczos with the part's rigid motions deflated, through
+ * the project's one free-mode tail, solveFreeModesOf; σ from an Euler–Bernoulli estimate).
  */
 export function solveSolidPart(bar: SolidBar, part: SolidPart, mesh: SolidMeshOptions, request: SolidPartRequest, tolerance = 1e-7): SolidPartSolution {
   const system = assembleSolidBar(buildSolidBarMesh(bar.geometry, part, mesh), bar.material);
-  const shift = -0.1 * firstEigenvalueEstimate(bar);
-  const upTo = request.upToHz === undefined ? undefined : (2 * Math.PI * request.upToHz) ** 2;
-  const result = lowestModesOf(envelopeEigenproblem(system.stiffness, system.mass), request.count, {
-    shift,
+  const free = solveFreeModesOf(envelopeEigenproblem(system.stiffness, system.mass), {
+    modes: request.count,
+    firstEigenvalueEstimate: firstEigenvalueEstimate(bar),
     rigidModes: solidRigidModes(system),
     tolerance,
-    ...(upTo === undefined ? {} : { upTo }),
+    ...(request.upToHz === undefined ? {} : { upToHz: request.upToHz }),
   });
-  return { part, system, eigenvalues: result.eigenvalues, vectors: result.vectors, steps: result.steps };
+  return { part, system, eigenvalues: free.eigenvalues, vectors: free.vectors, steps: free.steps };
 }
 
 /**

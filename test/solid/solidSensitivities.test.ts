@@ -22,7 +22,7 @@ const thicknesses = [22, 22, 14, 10, 15, 22, 22];
 function undercutBar(t: readonly number[]): SolidBar {
   return {
     geometry: { length: 0.3, width: 0.04, blankThickness: 0.022, profile: { positions: Float64Array.from(stations, (x) => x * mm), thicknesses: Float64Array.from(t, (x) => x * mm) } },
-    material: { stiffness: orthotropicStiffness(wood, { ringAngle: Math.PI / 2 }), density: 750 },
+    material: { stiffness: orthotropicStiffness(wood, { ringAngle: 0 }), density: 750 },
     mirrorSymmetric: true,
   };
 }

@@ -46,9 +46,9 @@ export function hexahedronJacobian(table: HexahedronTable, q: number, coordinate
     const dzeta = derivatives[base + 2]!;
     for (let i = 0; i < 3; i++) {
       const x = coordinates[3 * a + i]!;
-      jacobian[i * 3] += x * dxi;
-      jacobian[i * 3 + 1] += x * deta;
-      jacobian[i * 3 + 2] += x * dzeta;
+      jacobian[i * 3]! += x * dxi;
+      jacobian[i * 3 + 1]! += x * deta;
+      jacobian[i * 3 + 2]! += x * dzeta;
     }
   }
   const j00 = jacobian[0]!;
