@@ -7,6 +7,7 @@ import { keyboardBarTemplates, keyboardStationTables } from '../../instrument/ke
 import { keyboardCutListCsv } from '../../instrument/keyboardCutListCsv.ts';
 import { planKeyboard, type KeyboardPlan } from '../../instrument/planKeyboard.ts';
 import { createWorkerPool } from '../../instrument/workerPool.ts';
+import { keyboardBarWorkerUrl } from '../../instrument/keyboardBarWorkerUrl.ts';
 import { parseKeyboardFile } from '../../project/keyboardFile.ts';
 import { InputError } from '../../project/InputError.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
@@ -74,7 +75,7 @@ export const planCommand: Command = {
     const file = parseKeyboardFile(await readJsonFile(path, io), path);
     const workers = numberOption(values.workers, 'workers', (n) => (Number.isInteger(n) && n >= 1 && n <= 16 ? null : 'must be a whole number from 1 to 16')) ?? Math.min(4, availableParallelism());
     const previous = values.out !== undefined && !values.fresh ? await previousPlan(values.out) : undefined;
-    const pool = createWorkerPool<KeyboardTask, KeyboardTaskResult>(new URL('../../instrument/keyboardBarWorker.ts', import.meta.url), { size: workers });
+    const pool = createWorkerPool<KeyboardTask, KeyboardTaskResult>(keyboardBarWorkerUrl, { size: workers });
     const controller = new AbortController();
     const stop = (): void => controller.abort();
     process.once('SIGINT', stop);
