@@ -1,6 +1,5 @@
 // Worker that finds partials off the main thread with the library's own code (src/audio via
 // src/index.ts): a dropped WAV file is decoded and analysed, a microphone capture analysed.
-import '../numericShim.ts';
 import { analyzeRecording, findPartials, isInputError, tapReport } from '../../src/index.ts';
 import type { PartialRequest, PartialResponse } from './partialProtocol.ts';
 

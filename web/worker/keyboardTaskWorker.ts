@@ -1,7 +1,6 @@
 // A keyboard-planning worker: runs one keyboard task at a time (advise a blank length, or design
 // a bar) through the library's runKeyboardTask and posts the result back. Several of these form
 // the pool in KeyboardWorkerPool.ts.
-import '../numericShim.ts';
 import { isInputError, runKeyboardTask } from '../../src/index.ts';
 import type { KeyboardTaskReply, KeyboardTaskRequest } from './keyboardTaskProtocol.ts';
 
