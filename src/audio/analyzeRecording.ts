@@ -1,7 +1,7 @@
 import { decodeWav } from './decodeWav.ts';
 import { findPartials, type PartialAnalysis, type PartialOptions } from './findPartials.ts';
 import { labelPartials, type ExpectedModes, type LabelTolerances } from './labelPartials.ts';
-import { roundDecimals as round } from '../project/roundDecimals.ts';
+import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
 
 /** One partial as `barwright tap --json` prints it (contract field names, rounded). */
 export interface TapPartial {

@@ -1,5 +1,5 @@
 import { WaveFile } from './waveFileClass.ts';
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 
 /** A decoded recording: one Float64Array per channel, samples scaled to −1 … +1 (full scale). */
 export interface DecodedAudio {

@@ -1,5 +1,5 @@
 import { WaveFile } from './waveFileClass.ts';
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 
 /** Sample encodings encodeWav writes. */
 export type WavEncoding = { kind: 'integer'; bits: 8 | 16 | 24 | 32 } | { kind: 'float'; bits: 32 };

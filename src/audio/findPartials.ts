@@ -1,4 +1,4 @@
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { findStrike } from './findStrike.ts';
 import { noiseFloor, type NoiseFloor } from './noiseFloor.ts';
 import { pickPeaks, type SpectralPeak } from './pickPeaks.ts';

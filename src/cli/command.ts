@@ -1,5 +1,5 @@
 import { parseArgs, type ParseArgsConfig } from 'node:util';
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/index.ts';
 
 /** Where a command writes; tests pass their own to capture output. */
 export interface CommandIo {

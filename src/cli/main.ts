@@ -1,7 +1,7 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { commands } from './commands.ts';
 import type { CommandIo } from './command.ts';
-import { isInputError } from '../project/InputError.ts';
+import { isInputError } from '../fileFormats/index.ts';
 
 /** The real process's input/output. */
 export const processIo: CommandIo = {

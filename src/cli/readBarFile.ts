@@ -1,4 +1,4 @@
-import { parseBarFile, type BarFile } from '../project/barFile.ts';
+import { parseBarFile, type BarFile } from '../fileFormats/index.ts';
 import { readJsonFile, type CommandIo } from './command.ts';
 
 /** Reads and validates a bar file; errors name the file, the field and the rule (exit 2). */

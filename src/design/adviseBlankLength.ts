@@ -1,8 +1,8 @@
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { barModelFromFile, type BarModel } from '../modes/BarModel.ts';
 import { solveBending } from '../modes/solveBending.ts';
-import type { BarFile, BarFileMaterial, BarFileSection } from '../project/barFile.ts';
-import { InputError } from '../project/InputError.ts';
+import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { uniformProfile } from '../section/ThicknessProfile.ts';
 import { resolveCutLimits, type CutLimits, type CutLimitsInput } from './cutLimits.ts';
 import { createDesignProblem } from './designProblem.ts';
@@ -12,7 +12,7 @@ import { bindingLimits, shortfallReason } from './explainDesign.ts';
 import type { SolveBudget } from './fitShape.ts';
 import type { DesignRunOptions } from './designBar.ts';
 import type { ShapeStart } from './searchShapes.ts';
-import { roundDecimals } from '../project/roundDecimals.ts';
+import { roundDecimals } from '../fileFormats/roundDecimals.ts';
 
 /** The blank a maker would buy: its section and material (bar-file terms, mm); no length yet. */
 export interface BlankSpec {

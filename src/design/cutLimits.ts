@@ -1,4 +1,5 @@
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
+import type { CutLimitsInput } from '../fileFormats/cutLimitsInput.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 
 /**
@@ -25,20 +26,7 @@ export interface CutLimits {
   readonly maxShortening: number;
 }
 
-/** Cut limits as a file or a command line gives them (mm; every field optional). */
-export interface CutLimitsInput {
-  min_thickness_mm?: number;
-  /** Uncut length at both ends (mm); `uncut_left_mm` / `uncut_right_mm` override one end. */
-  uncut_end_mm?: number;
-  uncut_left_mm?: number;
-  uncut_right_mm?: number;
-  /** Largest slope of the cut surface, rise over run (e.g. 0.5 ≈ 27°). */
-  max_slope?: number;
-  /** Smallest tool radius (mm); 0 for no limit. */
-  min_tool_radius_mm?: number;
-  allow_shortening?: boolean;
-  max_shortening_mm?: number;
-}
+export type { CutLimitsInput };
 
 /** The blank the limits apply to (SI): its length and its full (uncut) thickness. */
 export interface CutBlank {

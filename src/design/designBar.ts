@@ -2,8 +2,8 @@ import type { BeamTheory } from '../fe/beamElementType.ts';
 import { barModelFromFile, type BarModel } from '../modes/BarModel.ts';
 import { bendingNodePositions } from '../modes/modeShape.ts';
 import { solveBending } from '../modes/solveBending.ts';
-import { parseBarFile, type BarFile } from '../project/barFile.ts';
-import { InputError } from '../project/InputError.ts';
+import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 import { checkProfile, cutLimitsToInput, projectRemoval, resolveCutLimits, trimProfile, type CutLimits, type CutLimitsInput } from './cutLimits.ts';
 import { designCautions } from './designCautions.ts';
@@ -13,7 +13,7 @@ import { designShape, shapeFamilies, type ShapeOutcome } from './designShape.ts'
 import { resolveDesignTarget, type DesignTarget, type DesignTargetInput } from './designTarget.ts';
 import { bindingLimits, shortfallReason, type BindingLimit, type RatioProbe } from './explainDesign.ts';
 import type { SolveBudget } from './fitShape.ts';
-import { roundDecimals as round } from '../project/roundDecimals.ts';
+import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
 
 /** What to design: the target, the workshop limits (mm) and solver choices. */
 export interface DesignRequest {

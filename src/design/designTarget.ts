@@ -1,5 +1,6 @@
-import { checkA4, noteToHz, standardA4Hz } from '../pitch/noteToHz.ts';
-import { InputError } from '../project/InputError.ts';
+import { checkA4, standardA4Hz } from '../fileFormats/concertPitch.ts';
+import { noteToHz } from '../pitch/noteToHz.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 
 /** Named ratio sets a maker asks for (trade practice, brief §1). */
 export const ratioPresets: Readonly<Record<string, readonly number[]>> = {

@@ -1,5 +1,5 @@
-import type { BarFile } from '../project/barFile.ts';
-import { InputError } from '../project/InputError.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 
 /** Options of profileTemplateSvg (mm). */
 export interface TemplateOptions {

@@ -1,7 +1,7 @@
-import type { BarFile } from '../project/barFile.ts';
-import { InputError } from '../project/InputError.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
-import { roundDecimals as round } from '../project/roundDecimals.ts';
+import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
 
 /** One row of the maker's thickness table (mm). */
 export interface StationRow {

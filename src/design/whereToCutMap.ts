@@ -3,9 +3,9 @@ import { gaussLegendre } from '../fe/gaussLegendre.ts';
 import { barModelFromFile } from '../modes/BarModel.ts';
 import { bendingSensitivityDensity } from '../modes/bendingSensitivities.ts';
 import { solveBending } from '../modes/solveBending.ts';
-import type { BarFile } from '../project/barFile.ts';
-import { InputError } from '../project/InputError.ts';
-import { roundDecimals } from '../project/roundDecimals.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
+import { roundDecimals } from '../fileFormats/roundDecimals.ts';
 
 /** Options of whereToCutMap (mm at the edge). */
 export interface CutEffectOptions {

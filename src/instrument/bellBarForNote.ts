@@ -1,7 +1,7 @@
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { analyzeBar } from '../modes/analyzeBar.ts';
 import { barModelFromFile } from '../modes/BarModel.ts';
-import type { BarFile, BarFileMaterial } from '../project/barFile.ts';
+import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import { lengthForFrequency } from './lengthForFrequency.ts';
 import { nearestInterval } from './musicalInterval.ts';
 import { meshDensity } from '../modes/meshDensity.ts';

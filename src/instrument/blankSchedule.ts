@@ -1,4 +1,4 @@
-import type { KeyboardFile } from '../project/keyboardFileTypes.ts';
+import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
 import type { KeyboardNote } from './keyboardNotes.ts';
 import type { NoteBlankWindow } from './keyboardBlankAdvice.ts';
 import { smoothLengths, type LengthWindow } from './smoothLengths.ts';

@@ -1,7 +1,8 @@
-import { midiToNoteName, hzToNote } from '../pitch/hzToNote.ts';
-import { midiToHz } from '../pitch/noteToHz.ts';
-import { parseNote } from '../pitch/parseNote.ts';
-import type { ChimeSetFile } from '../project/chimeSetFile.ts';
+import { midiToNoteName } from '../fileFormats/noteName.ts';
+import { hzToNote } from '../pitch/hzToNote.ts';
+import { midiToHz } from '../fileFormats/concertPitch.ts';
+import { parseNote } from '../fileFormats/noteName.ts';
+import type { ChimeSetFile } from '../fileFormats/chimeSetFile.ts';
 import type { ChimePartial } from './analyzeChime.ts';
 import { chimeForNote } from './chimeForNote.ts';
 import type { ChimeStock } from './chimeStock.ts';

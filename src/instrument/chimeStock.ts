@@ -1,5 +1,5 @@
 import { materialFromFile, sectionFromFile, type BarModel } from '../modes/BarModel.ts';
-import type { BarFile, BarFileMaterial } from '../project/barFile.ts';
+import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import { uniformProfile } from '../section/ThicknessProfile.ts';
 import { cylindricalPlug, type EndLoad } from './endLoad.ts';
 

@@ -1,6 +1,6 @@
 // Keyboards, chimes and bell bars: set-level planning on top of the solver, the designer and the
-// resonator code. Browser-safe: the Node worker pool (workerPool.ts, serveWorkerTasks.ts,
-// keyboardBarWorker.ts) is left out on purpose; a browser runs runKeyboardTask in web workers.
+// resonator code. Browser-safe: the Node worker pool is left out on purpose (its public index
+// is index.node.ts); a browser runs runKeyboardTask in web workers.
 export * from './lengthForFrequency.ts';
 export * from './endLoad.ts';
 export * from './pieceModes.ts';
@@ -28,8 +28,4 @@ export * from './runBatch.ts';
 export * from './planKeyboard.ts';
 export * from './keyboardCutListCsv.ts';
 export * from './keyboardBarTemplates.ts';
-// The keyboard and chime-set file formats (src/project), re-exported with the code that reads them.
-export * from '../project/keyboardFile.ts';
-export * from '../project/chimeSetFile.ts';
-export * from './storePlanInProject.ts';
 export * from './tuneBellBarOvertone.ts';

@@ -1,6 +1,6 @@
 import type { CutLimitsInput } from '../design/cutLimits.ts';
-import type { BarFile } from '../project/barFile.ts';
-import type { KeyboardFile } from '../project/keyboardFileTypes.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
+import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
 import type { ScheduledBlank } from './blankSchedule.ts';
 import type { KeyboardNote } from './keyboardNotes.ts';
 import { stableHash } from './stableHash.ts';

@@ -1,5 +1,5 @@
 import { analyzeBar } from '../modes/analyzeBar.ts';
-import type { BarFile } from '../project/barFile.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
 import { closedTube } from '../resonator/closedTube.ts';
 
 /** How a planned bar stands: within its tolerances on the check mesh, outside them, or not designable. */

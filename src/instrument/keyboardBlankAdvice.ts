@@ -1,7 +1,7 @@
 import { adviseBlankLength } from '../design/adviseBlankLength.ts';
 import type { CutLimitsInput } from '../design/cutLimits.ts';
-import type { BarFileMaterial } from '../project/barFile.ts';
-import type { KeyboardFile } from '../project/keyboardFileTypes.ts';
+import type { BarFileMaterial } from '../fileFormats/barFile.ts';
+import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
 import type { KeyboardNote } from './keyboardNotes.ts';
 import type { LengthWindow } from './smoothLengths.ts';
 import { stableHash } from './stableHash.ts';

@@ -1,8 +1,8 @@
-import { midiToNoteName } from '../pitch/hzToNote.ts';
-import { midiToHz } from '../pitch/noteToHz.ts';
-import { parseNote } from '../pitch/parseNote.ts';
-import type { BarFileMaterial } from '../project/barFile.ts';
-import { spanIndexOf, spanMidi, type KeyboardFile } from '../project/keyboardFile.ts';
+import { midiToNoteName } from '../fileFormats/noteName.ts';
+import { midiToHz } from '../fileFormats/concertPitch.ts';
+import { parseNote } from '../fileFormats/noteName.ts';
+import type { BarFileMaterial } from '../fileFormats/barFile.ts';
+import { spanIndexOf, spanMidi, type KeyboardFile } from '../fileFormats/keyboardFile.ts';
 
 /** One note of a keyboard with everything its bar is planned from (mm, Hz, cents). */
 export interface KeyboardNote {

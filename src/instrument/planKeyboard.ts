@@ -1,4 +1,4 @@
-import type { KeyboardFile } from '../project/keyboardFileTypes.ts';
+import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
 import { blankSchedule, type ScheduledBlank } from './blankSchedule.ts';
 import type { StoredKeyboardBar } from './designKeyboardBar.ts';
 import { adviceSpans, blankAdviceJob, noteBlankWindows, notesToAdvise, type StoredBlankAdvice } from './keyboardBlankAdvice.ts';

@@ -1,6 +1,6 @@
 import { designBar, type DesignResult } from '../design/designBar.ts';
 import { analyzeBar } from '../modes/analyzeBar.ts';
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { bellBarForNote, type BellBarForNote, type BellBarStock } from './bellBarForNote.ts';
 
 /** Options of tuneBellBarOvertone. */

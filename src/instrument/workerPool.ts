@@ -2,7 +2,7 @@
 // see it. A browser pool of web workers can run the same per-bar function through runBatch.
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import type { BatchRunner } from './runBatch.ts';
 
 /** Message a pool worker receives: one task. */

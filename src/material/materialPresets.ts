@@ -1,7 +1,9 @@
+import type { MaterialPresetName } from '../fileFormats/materialPresetNames.ts';
+
 /** A named material preset, in the bar file's units (GPa, kg/m³), each value with its source. */
 export interface MaterialPreset {
-  /** Name used in bar files: `"material": { "preset": NAME }`. */
-  readonly name: string;
+  /** Name used in bar files: `"material": { "preset": NAME }` (the bar file format lists the names). */
+  readonly name: MaterialPresetName;
   /** Plain description for lists. */
   readonly label: string;
   readonly kind: 'wood' | 'metal' | 'demo';

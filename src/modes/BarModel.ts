@@ -1,6 +1,6 @@
 import type { Material } from '../material/Material.ts';
 import { findMaterialPreset } from '../material/materialPresets.ts';
-import type { BarFile, BarFileMaterial, BarFileSection } from '../project/barFile.ts';
+import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
 import type { Section } from '../section/Section.ts';
 import { uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 

@@ -1,6 +1,6 @@
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { buildMesh } from '../fe/buildMesh.ts';
-import type { BarFile } from '../project/barFile.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
 import { isAxisymmetric } from '../section/Section.ts';
 import { barModelFromFile, type BarModel } from './BarModel.ts';
 import { collisionWarnings, collisionWindowCents, type OtherMode } from './collisionWarnings.ts';

@@ -1,4 +1,4 @@
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { speedOfSound, type AirConditions } from './speedOfSound.ts';
 
 /** A tube that was built and measured. */

@@ -1,4 +1,4 @@
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { cents } from '../pitch/cents.ts';
 import { endCorrection, type OpenEnd } from './endCorrection.ts';
 import { speedOfSound, speedOfSoundDryAir, type AirConditions } from './speedOfSound.ts';

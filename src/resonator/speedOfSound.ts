@@ -1,4 +1,4 @@
-import { InputError } from '../project/InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 
 /** Air conditions for the speed of sound. */
 export interface AirConditions {

@@ -1,4 +1,4 @@
-import type { BarFile } from '../project/barFile.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
 import type { BarModel } from '../modes/BarModel.ts';
 import { thicknessAt, uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 

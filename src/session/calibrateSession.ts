@@ -1,6 +1,6 @@
 import type { BarModel } from '../modes/BarModel.ts';
-import { InputError } from '../project/InputError.ts';
-import { defaultMeasurementUncertaintyCents, type SessionLog } from '../project/sessionFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
+import { defaultMeasurementUncertaintyCents, type SessionLog } from '../fileFormats/sessionFile.ts';
 import { defaultCalibrationPriors, flagFloorCents, flagSigmas, maxFlagged, type CalibrationPriors } from './calibrationPriors.ts';
 import { fitModuli, type FitResult, type FitShape, type LinearPrior } from './fitModuli.ts';
 import { sessionShapes } from './sessionShapes.ts';

@@ -1,9 +1,9 @@
-import { InputError } from '../project/InputError.ts';
-import type { BarFile } from '../project/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
 import { barModelFromFile, type BarModel } from '../modes/BarModel.ts';
 import { fitModuli, type FitShape, type LinearPrior } from './fitModuli.ts';
 import { hzToAbsoluteCents } from './partialModel.ts';
-import { defaultMeasurementUncertaintyCents } from '../project/sessionFile.ts';
+import { defaultMeasurementUncertaintyCents } from '../fileFormats/sessionFile.ts';
 
 /** What a blank characterisation needs: the blank, its tapped partials, optionally its mass. */
 export interface CharacterizeInput {

@@ -1,5 +1,5 @@
-import type { BarFile } from '../project/barFile.ts';
-import { roundDecimals as round } from '../project/roundDecimals.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
+import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
 
 /** Thickness (mm) of a bar file at a position (mm): its profile interpolated, or the blank's; 0 off the bar. */
 function thicknessAtMm(bar: BarFile, position: number): number {

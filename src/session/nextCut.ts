@@ -1,7 +1,7 @@
 import { cutLimitsToInput, resolveCutLimits, type CutLimits, type CutLimitsInput } from '../design/cutLimits.ts';
-import { InputError, isInputError } from '../project/InputError.ts';
-import type { BarFile } from '../project/barFile.ts';
-import { parseSessionFile, sessionTargetHz, type SessionLog } from '../project/sessionFile.ts';
+import { InputError, isInputError } from '../fileFormats/InputError.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
+import { parseSessionFile, sessionTargetHz, type SessionLog } from '../fileFormats/sessionFile.ts';
 import { cents } from '../pitch/cents.ts';
 import { barFileFromModel, shapeAfterFile } from './barFileFromModel.ts';
 import { predictShape } from './predictShape.ts';

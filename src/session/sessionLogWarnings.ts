@@ -1,5 +1,5 @@
 import { barModelFromFile } from '../modes/BarModel.ts';
-import type { SessionLog } from '../project/sessionFile.ts';
+import type { SessionLog } from '../fileFormats/sessionFile.ts';
 import { thicknessAt } from '../section/ThicknessProfile.ts';
 
 /** Thickness (mm) by which a later step may exceed an earlier one before it counts as added material (caliper slack). */

@@ -1,6 +1,6 @@
 import { mergeStations } from '../design/cutLimits.ts';
 import { barModelFromFile, type BarModel } from '../modes/BarModel.ts';
-import type { SessionLog } from '../project/sessionFile.ts';
+import type { SessionLog } from '../fileFormats/sessionFile.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 import { shapeWithMeasuredThicknesses } from './measuredShape.ts';
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { decodeWav, encodeWav } from '../../src/audio/index.ts';
-import { InputError } from '../../src/project/InputError.ts';
+import { InputError } from '../../src/fileFormats/InputError.ts';
 
 /**
  * Builds a WAV file byte by byte from the RIFF/WAVE layout (Microsoft's RIFF specification):

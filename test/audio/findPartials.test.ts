@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { decodeWav, encodeWav, findPartials, type MeasuredPartial } from '../../src/audio/index.ts';
 import { cents } from '../../src/pitch/index.ts';
-import { InputError } from '../../src/project/InputError.ts';
+import { InputError } from '../../src/fileFormats/InputError.ts';
 import { demoBars, demoScene } from './demoBars.ts';
 import { synthesizeStrike, type SyntheticPartial } from './syntheticStrike.ts';
 

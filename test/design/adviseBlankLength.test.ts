@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeBar } from '../../src/modes/analyzeBar.ts';
-import type { BarFile } from '../../src/project/barFile.ts';
+import type { BarFile } from '../../src/fileFormats/barFile.ts';
 import { adviseBlankLength, type BlankSpec } from '../../src/design/adviseBlankLength.ts';
 import { designBar } from '../../src/design/designBar.ts';
 

@@ -10,7 +10,7 @@ import {
   trimProfile,
   type CutLimits,
 } from '../../src/design/cutLimits.ts';
-import { InputError } from '../../src/project/InputError.ts';
+import { InputError } from '../../src/fileFormats/InputError.ts';
 import { thicknessAt, type ThicknessProfile } from '../../src/section/ThicknessProfile.ts';
 
 const mm = 1e-3;

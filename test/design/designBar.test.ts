@@ -2,7 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeBar } from '../../src/modes/analyzeBar.ts';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
-import { parseBarFile, type BarFile } from '../../src/project/barFile.ts';
+import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { thicknessAt } from '../../src/section/ThicknessProfile.ts';
 import { checkProfile, resolveCutLimits } from '../../src/design/cutLimits.ts';
 import { designBar, type DesignRequest, type DesignResult } from '../../src/design/designBar.ts';

@@ -1,7 +1,7 @@
 // `barwright design` against the contract: JSON shape, written files, exit codes and messages.
 import { describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main.ts';
-import { parseBarFile } from '../../src/project/barFile.ts';
+import { parseBarFile } from '../../src/fileFormats/barFile.ts';
 import { captureIo as capture } from '../cli/captureIo.ts';
 
 

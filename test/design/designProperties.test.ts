@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { analyzeBar } from '../../src/modes/analyzeBar.ts';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
-import type { BarFile } from '../../src/project/barFile.ts';
+import type { BarFile } from '../../src/fileFormats/barFile.ts';
 import { checkProfile, resolveCutLimits, type CutLimitsInput } from '../../src/design/cutLimits.ts';
 import { designBar } from '../../src/design/designBar.ts';
 

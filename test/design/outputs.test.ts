@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeBar } from '../../src/modes/analyzeBar.ts';
-import { parseBarFile, type BarFile } from '../../src/project/barFile.ts';
+import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { profileTemplateSvg } from '../../src/design/profileTemplateSvg.ts';
 import { stationTable, stationTableCsv } from '../../src/design/stationTable.ts';
 import { whereToCutMap } from '../../src/design/whereToCutMap.ts';

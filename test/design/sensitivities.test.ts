@@ -9,7 +9,7 @@ import { powerArch } from '../../src/design/powerArch.ts';
 import { shoulderArch } from '../../src/design/shoulderArch.ts';
 import { surfaceConstraints } from '../../src/design/surfaceConstraints.ts';
 import type { ShapeFamily } from '../../src/design/ShapeFamily.ts';
-import type { BarFile } from '../../src/project/barFile.ts';
+import type { BarFile } from '../../src/fileFormats/barFile.ts';
 
 /** An invented rough-cut, slightly asymmetric bass blank so the min(original, arch) rule is exercised. */
 const bar: BarFile = {

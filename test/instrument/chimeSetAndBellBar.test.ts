@@ -11,7 +11,7 @@ import { chimeCutListCsv } from '../../src/instrument/chimeCutListCsv.ts';
 import { planChimeSet } from '../../src/instrument/chimeSetPlan.ts';
 import { cuttingPlan } from '../../src/instrument/cuttingPlan.ts';
 import { nearestInterval } from '../../src/instrument/musicalInterval.ts';
-import { parseChimeSetFile } from '../../src/project/chimeSetFile.ts';
+import { parseChimeSetFile } from '../../src/fileFormats/chimeSetFile.ts';
 import { parseRfc4180 } from './rfc4180.ts';
 import { captureIo as capture } from '../cli/captureIo.ts';
 

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { keyboardNotes } from '../../src/instrument/keyboardNotes.ts';
-import { parseKeyboardFile, readKeyboardFileText } from '../../src/project/keyboardFile.ts';
+import { parseKeyboardFile, readKeyboardFileText } from '../../src/fileFormats/keyboardFile.ts';
 
 const demoText = readFileSync(new URL('../../fixtures/demo.keyboard.json', import.meta.url), 'utf8');
 const demo = (): Record<string, any> => JSON.parse(demoText);

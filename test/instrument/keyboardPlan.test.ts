@@ -11,10 +11,10 @@ import { inThreadRunner } from '../../src/instrument/runBatch.ts';
 import { createWorkerPool, type WorkerPool } from '../../src/instrument/workerPool.ts';
 import { analyzeBar } from '../../src/modes/analyzeBar.ts';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
-import { parseKeyboardFile } from '../../src/project/keyboardFile.ts';
+import { parseKeyboardFile } from '../../src/fileFormats/keyboardFile.ts';
 import { parseRfc4180 } from './rfc4180.ts';
-import { storePlanInProject } from '../../src/instrument/storePlanInProject.ts';
-import { readProjectFileText } from '../../src/project/projectFile.ts';
+import { storePlanInProject } from '../../src/projectDocument/storePlanInProject.ts';
+import { readProjectFileText } from '../../src/projectDocument/projectFile.ts';
 
 const file = parseKeyboardFile(JSON.parse(readFileSync(new URL('../../fixtures/demo.keyboard.json', import.meta.url), 'utf8')), 'demo.keyboard.json');
 const cents = (a: number, b: number): number => 1200 * Math.log2(a / b);

@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { inThreadRunner, runBatch } from '../../src/instrument/runBatch.ts';
 import { createWorkerPool } from '../../src/instrument/workerPool.ts';
-import { isInputError } from '../../src/project/InputError.ts';
+import { isInputError } from '../../src/fileFormats/InputError.ts';
 
 type Job = { value: number; fail?: 'input' | 'internal'; spinMs?: number };
 type Result = { square: number; thread: number };

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { beatRate, cents, hzToMidi, hzToNote, midiToHz, midiToNoteName, noteToHz, parseNote, sharpOrFlat, shiftByCents } from '../../src/pitch/index.ts';
-import { InputError } from '../../src/project/InputError.ts';
+import { beatRate, cents, hzToMidi, hzToNote, noteToHz, sharpOrFlat, shiftByCents } from '../../src/pitch/index.ts';
+import { InputError, midiToHz, midiToNoteName, parseNote } from '../../src/fileFormats/index.ts';
 
 // Tolerance for closed-form identities evaluated in double precision: a few ulps of the
 // logarithms and powers involved, far below any audible difference.

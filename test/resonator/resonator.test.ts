@@ -16,7 +16,7 @@ import {
   tubeListCsv,
   tubeSet,
 } from '../../src/resonator/index.ts';
-import { InputError } from '../../src/project/InputError.ts';
+import { InputError } from '../../src/fileFormats/InputError.ts';
 
 const air20 = { temperatureC: 20 };
 

@@ -1,7 +1,7 @@
 // Calibration: the session learns the simulated bar's material from its measurements, and a
 // contradictory measurement is flagged and set aside, never absorbed.
 import { describe, expect, it } from 'vitest';
-import { parseSessionFile } from '../../src/project/sessionFile.ts';
+import { parseSessionFile } from '../../src/fileFormats/sessionFile.ts';
 import { calibrateSession } from '../../src/session/calibrateSession.ts';
 import { nextCut } from '../../src/session/nextCut.ts';
 import { runSimulatedSession } from './simulatedSession.ts';

@@ -3,7 +3,7 @@
 // equation (Huang 1961, as in Han, Benaroya & Wei, J. Sound Vib. 225 (1999) 935; memory;
 // test/reference/huangFreeFree.ts), not from the finite elements being inverted.
 import { describe, expect, it } from 'vitest';
-import { parseBarFile, type BarFile } from '../../src/project/barFile.ts';
+import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { characterizeBlank } from '../../src/session/characterizeBlank.ts';
 import { huangFreeFreeFrequencies } from '../reference/huangFreeFree.ts';
 import { seededRandom } from './simulatedBar.ts';

@@ -4,7 +4,7 @@ import { readFile } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
 import type { CommandIo } from '../../src/cli/command.ts';
 import { main } from '../../src/cli/main.ts';
-import { parseBarFile } from '../../src/project/barFile.ts';
+import { parseBarFile } from '../../src/fileFormats/barFile.ts';
 
 function capture(files: Record<string, string> = {}): CommandIo & { out: string[]; err: string[]; written: Record<string, string> } {
   const out: string[] = [];

@@ -3,9 +3,9 @@
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { isInputError } from '../../src/project/InputError.ts';
-import { parseSessionFile, sessionTargetHz } from '../../src/project/sessionFile.ts';
-import { appendSessionStep, sessionLogChanges, sessionLogOnlyExtends } from '../../src/project/sessionLogEdits.ts';
+import { isInputError } from '../../src/fileFormats/InputError.ts';
+import { parseSessionFile, sessionTargetHz } from '../../src/fileFormats/sessionFile.ts';
+import { appendSessionStep, sessionLogChanges, sessionLogOnlyExtends } from '../../src/fileFormats/sessionLogEdits.ts';
 
 const bar = {
   format: 'barwright.bar',

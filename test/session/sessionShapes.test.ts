@@ -2,8 +2,8 @@
 // and the log's own warnings.
 import { describe, expect, it } from 'vitest';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
-import { parseBarFile } from '../../src/project/barFile.ts';
-import { parseSessionFile } from '../../src/project/sessionFile.ts';
+import { parseBarFile } from '../../src/fileFormats/barFile.ts';
+import { parseSessionFile } from '../../src/fileFormats/sessionFile.ts';
 import { thicknessAt } from '../../src/section/ThicknessProfile.ts';
 import { shapeWithMeasuredThicknesses } from '../../src/session/measuredShape.ts';
 import { sessionLogWarnings } from '../../src/session/sessionLogWarnings.ts';

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
 import { solveBending } from '../../src/modes/solveBending.ts';
-import { parseBarFile } from '../../src/project/barFile.ts';
+import { parseBarFile } from '../../src/fileFormats/barFile.ts';
 import { evaluatePartials, withModuli } from '../../src/session/partialModel.ts';
 import { shearStiffnessShare } from '../../src/session/shearStiffnessShare.ts';
 

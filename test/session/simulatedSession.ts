@@ -2,7 +2,7 @@
 // session gets the measurement, nextCut recommends a cut, the simulated maker makes it (with an
 // execution error) and records the planned shape, and round again, until done, stuck or out of cuts.
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
-import { parseBarFile, type BarFile } from '../../src/project/barFile.ts';
+import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { thicknessAt, type ThicknessProfile } from '../../src/section/ThicknessProfile.ts';
 import { nextCut, type NextCutResult } from '../../src/session/nextCut.ts';
 import { defaultRealPhysics, realPartials, seededRandom, type RealPhysics } from './simulatedBar.ts';

@@ -7,7 +7,7 @@
 // removes up to ±10 % more or less depth than planned while recording the plan.
 import { readFileSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
-import { parseBarFile, type BarFile } from '../../src/project/barFile.ts';
+import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
 import { thicknessAt } from '../../src/section/ThicknessProfile.ts';
 import { runSimulatedSession, type SimulatedSessionOutcome } from './simulatedSession.ts';

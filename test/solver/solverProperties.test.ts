@@ -4,7 +4,7 @@ import { analyzeBar } from '../../src/index.ts';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
 import { bendingSensitivities } from '../../src/modes/bendingSensitivities.ts';
 import { solveBending } from '../../src/modes/solveBending.ts';
-import type { BarFile } from '../../src/project/barFile.ts';
+import type { BarFile } from '../../src/fileFormats/barFile.ts';
 
 // Property-based checks on random bars (fast-check; invented, trade-plausible ranges). numRuns are
 // kept modest so the suite stays quick; each property is exact physics or exact algebra of the

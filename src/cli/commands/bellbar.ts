@@ -1,11 +1,7 @@
-import { bellBarForNote, type BellBarStock } from '../../instrument/bellBarForNote.ts';
-import { tuneBellBarOvertone } from '../../instrument/tuneBellBarOvertone.ts';
-import { metalCautions } from '../../instrument/workshopCautions.ts';
-import { checkA4, noteToHz } from '../../pitch/noteToHz.ts';
-import { parseBarFile } from '../../project/barFile.ts';
-import { InputError } from '../../project/InputError.ts';
+import { bellBarForNote, type BellBarStock, tuneBellBarOvertone, metalCautions, signedNumber } from '../../instrument/index.ts';
+import { checkA4, parseBarFile, InputError } from '../../fileFormats/index.ts';
+import { noteToHz } from '../../pitch/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
-import { signedNumber } from '../../instrument/csvTable.ts';
 
 /** `barwright bellbar`: a uniform bell bar for a note — length, partials and intervals, supports, collisions. */
 export const bellbarCommand: Command = {

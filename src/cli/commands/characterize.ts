@@ -1,5 +1,5 @@
-import { InputError } from '../../project/InputError.ts';
-import { characterizeBlank } from '../../session/characterizeBlank.ts';
+import { InputError } from '../../fileFormats/index.ts';
+import { characterizeBlank } from '../../session/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
 import { refuseOverwrite } from './next-cut.ts';

@@ -1,18 +1,9 @@
 import { mkdir } from 'node:fs/promises';
 import { join } from 'node:path';
-import { analyzeChime, type ChimeAnalysis } from '../../instrument/analyzeChime.ts';
-import { chimeCutListCsv } from '../../instrument/chimeCutListCsv.ts';
-import { chimeForNote, type ChimeForNote } from '../../instrument/chimeForNote.ts';
-import { planChimeSet, type ChimeSetPlan } from '../../instrument/chimeSetPlan.ts';
-import type { ChimeStock } from '../../instrument/chimeStock.ts';
-import { metalCautions } from '../../instrument/workshopCautions.ts';
-import { hzToNote } from '../../pitch/hzToNote.ts';
-import { checkA4, noteToHz } from '../../pitch/noteToHz.ts';
-import { parseBarFile } from '../../project/barFile.ts';
-import { parseChimeSetFile } from '../../project/chimeSetFile.ts';
-import { InputError } from '../../project/InputError.ts';
+import { analyzeChime, type ChimeAnalysis, chimeCutListCsv, chimeForNote, type ChimeForNote, planChimeSet, type ChimeSetPlan, type ChimeStock, metalCautions, signedNumber } from '../../instrument/index.ts';
+import { hzToNote, noteToHz } from '../../pitch/index.ts';
+import { checkA4, parseBarFile, parseChimeSetFile, InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
-import { signedNumber } from '../../instrument/csvTable.ts';
 
 const usage = [
   'barwright chime SET.chimes.json [--out DIR] [--json]',

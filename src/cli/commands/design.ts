@@ -1,10 +1,5 @@
-import { designBar, type DesignRequest } from '../../design/designBar.ts';
-import { parseToleranceList } from '../../design/designTarget.ts';
-import { profileTemplateSvg } from '../../design/profileTemplateSvg.ts';
-import { stationTable, stationTableCsv } from '../../design/stationTable.ts';
-import { whereToCutMap } from '../../design/whereToCutMap.ts';
-import type { CutLimitsInput } from '../../design/cutLimits.ts';
-import { InputError } from '../../project/InputError.ts';
+import { designBar, type DesignRequest, parseToleranceList, profileTemplateSvg, stationTable, stationTableCsv, whereToCutMap, type CutLimitsInput } from '../../design/index.ts';
+import { InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
 

@@ -1,5 +1,5 @@
-import { materialPresets } from '../../material/materialPresets.ts';
-import { InputError } from '../../project/InputError.ts';
+import { materialPresets } from '../../material/index.ts';
+import { InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, parseOptions, toJson, type Command } from '../command.ts';
 
 /** `barwright materials`: the material presets with the source of every value (contract). */

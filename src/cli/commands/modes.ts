@@ -1,5 +1,5 @@
-import { analyzeBar } from '../../modes/analyzeBar.ts';
-import { InputError } from '../../project/InputError.ts';
+import { analyzeBar } from '../../modes/index.ts';
+import { InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
 

@@ -1,6 +1,5 @@
-import { InputError } from '../../project/InputError.ts';
-import { parseSessionFile } from '../../project/sessionFile.ts';
-import { nextCut, type NextCutResult } from '../../session/nextCut.ts';
+import { InputError, parseSessionFile } from '../../fileFormats/index.ts';
+import { nextCut, type NextCutResult } from '../../session/index.ts';
 import { fixed, formatTable, parseOptions, readJsonFile, toJson, type Command, type CommandIo } from '../command.ts';
 
 function signed(value: number, decimals: number): string {

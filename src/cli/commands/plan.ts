@@ -1,17 +1,10 @@
 import { availableParallelism } from 'node:os';
 import { mkdir, readFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import type { StoredKeyboardBar } from '../../instrument/designKeyboardBar.ts';
-import { type KeyboardTask, type KeyboardTaskResult } from '../../instrument/keyboardTask.ts';
-import { keyboardBarTemplates, keyboardStationTables } from '../../instrument/keyboardBarTemplates.ts';
-import { keyboardCutListCsv } from '../../instrument/keyboardCutListCsv.ts';
-import { planKeyboard, type KeyboardPlan } from '../../instrument/planKeyboard.ts';
-import { createWorkerPool } from '../../instrument/workerPool.ts';
-import { keyboardBarWorkerUrl } from '../../instrument/keyboardBarWorkerUrl.ts';
-import { parseKeyboardFile } from '../../project/keyboardFile.ts';
-import { InputError } from '../../project/InputError.ts';
+import { type StoredKeyboardBar, type KeyboardTask, type KeyboardTaskResult, keyboardBarTemplates, keyboardStationTables, keyboardCutListCsv, planKeyboard, type KeyboardPlan, signedNumber } from '../../instrument/index.ts';
+import { createWorkerPool, keyboardBarWorkerUrl } from '../../instrument/index.node.ts';
+import { parseKeyboardFile, InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
-import { signedNumber } from '../../instrument/csvTable.ts';
 
 /** The stored plan in an output folder, when there is a readable one to resume from. */
 async function previousPlan(dir: string): Promise<Pick<KeyboardPlan, 'bars' | 'advice'> | undefined> {

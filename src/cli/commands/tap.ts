@@ -1,10 +1,7 @@
-import { analyzeRecording, type TapReport } from '../../audio/analyzeRecording.ts';
-import { expectedModesOf } from '../../audio/labelPartials.ts';
-import { analyzeBar } from '../../modes/analyzeBar.ts';
-import { hzToNote } from '../../pitch/hzToNote.ts';
-import { checkA4 } from '../../pitch/noteToHz.ts';
-import { cents } from '../../pitch/cents.ts';
-import { InputError } from '../../project/InputError.ts';
+import { analyzeRecording, type TapReport, expectedModesOf } from '../../audio/index.ts';
+import { analyzeBar } from '../../modes/index.ts';
+import { hzToNote, cents } from '../../pitch/index.ts';
+import { checkA4, InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command, type CommandIo } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
 

@@ -1,13 +1,6 @@
-import { checkA4, midiToHz } from '../../pitch/noteToHz.ts';
-import { midiToNoteName } from '../../pitch/hzToNote.ts';
-import { parseNote } from '../../pitch/parseNote.ts';
-import { InputError } from '../../project/InputError.ts';
-import { calibrateEndCorrection } from '../../resonator/calibrateEndCorrection.ts';
-import { endCorrectionFactors, type OpenEnd } from '../../resonator/endCorrection.ts';
-import { tubeListCsv, tubeSet, type TubeRow } from '../../resonator/tubeListCsv.ts';
-import type { AirConditions } from '../../resonator/speedOfSound.ts';
+import { checkA4, midiToHz, midiToNoteName, parseNote, InputError, roundDecimals as round } from '../../fileFormats/index.ts';
+import { calibrateEndCorrection, endCorrectionFactors, type OpenEnd, tubeListCsv, tubeSet, type TubeRow, type AirConditions } from '../../resonator/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
-import { roundDecimals as round } from '../../project/roundDecimals.ts';
 
 const source = 'command line';
 

@@ -3,8 +3,8 @@ import type { KeyboardTask, KeyboardTaskResult } from '../../../src/instrument/k
 import { planKeyboard, type KeyboardPlan } from '../../../src/instrument/planKeyboard.ts';
 import { planChimeSet } from '../../../src/instrument/chimeSetPlan.ts';
 import { createWorkerPool } from '../../../src/instrument/workerPool.ts';
-import { parseChimeSetFile } from '../../../src/project/chimeSetFile.ts';
-import { parseKeyboardFile } from '../../../src/project/keyboardFile.ts';
+import { parseChimeSetFile } from '../../../src/fileFormats/chimeSetFile.ts';
+import { parseKeyboardFile } from '../../../src/fileFormats/keyboardFile.ts';
 import { measure, type BenchRow, type BenchSuite } from '../measure.ts';
 
 const keyboardPath = new URL('../../../fixtures/demo.keyboard.json', import.meta.url);

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
-import { parseBarFile } from '../../../src/project/barFile.ts';
-import { parseSessionFile } from '../../../src/project/sessionFile.ts';
+import { parseBarFile } from '../../../src/fileFormats/barFile.ts';
+import { parseSessionFile } from '../../../src/fileFormats/sessionFile.ts';
 import { calibrateSession } from '../../../src/session/calibrateSession.ts';
 import { characterizeBlank } from '../../../src/session/characterizeBlank.ts';
 import { nextCut } from '../../../src/session/nextCut.ts';

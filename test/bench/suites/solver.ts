@@ -5,7 +5,7 @@ import { bandedToDense } from '../../../src/eigen/BandedMatrix.ts';
 import { barModelFromFile } from '../../../src/modes/BarModel.ts';
 import { meshDensity } from '../../../src/modes/meshDensity.ts';
 import { bendingLine, solveBendingLine } from '../../../src/modes/solveBending.ts';
-import type { BarFile } from '../../../src/project/barFile.ts';
+import type { BarFile } from '../../../src/fileFormats/barFile.ts';
 import { denseGeneralizedEigen } from '../../reference/denseGeneralizedEigen.ts';
 import { measure, type BenchRow, type BenchSuite } from '../measure.ts';
 

@@ -1,6 +1,6 @@
 // A pool worker for the pool's own tests: squares numbers, fails on request.
 import { serveWorkerTasks } from '../../../src/instrument/serveWorkerTasks.ts';
-import { InputError } from '../../../src/project/InputError.ts';
+import { InputError } from '../../../src/fileFormats/InputError.ts';
 import { threadId } from 'node:worker_threads';
 
 serveWorkerTasks((job: { value: number; fail?: 'input' | 'internal'; spinMs?: number }) => {

@@ -1,6 +1,6 @@
 // Migrations of the project file from older versions to the current one. Each step takes the
 // plain JSON of version n and returns version n + 1; they run in order before validation.
-import { InputError } from './InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { projectFileFormat, projectFileVersion } from './projectFileTypes.ts';
 
 type JsonObject = Record<string, unknown>;

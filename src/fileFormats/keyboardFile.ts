@@ -1,7 +1,7 @@
 // Reading and validating keyboard files (`*.keyboard.json`). Every rule broken is reported as
 // `source: field: rule`, naming the note where a note is concerned.
-import { checkA4 } from '../pitch/noteToHz.ts';
-import { parseNote } from '../pitch/parseNote.ts';
+import { checkA4 } from './concertPitch.ts';
+import { parseNote } from './noteName.ts';
 import { parseBarFile, type BarFileMaterial } from './barFile.ts';
 import { InputError, isInputError } from './InputError.ts';
 import { keyboardFileFormat, keyboardFileVersion, type KeyboardFile, type KeyboardLimits, type KeyboardResonators, type NoteSpan } from './keyboardFileTypes.ts';

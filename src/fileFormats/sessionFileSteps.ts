@@ -2,7 +2,7 @@
 // measured, and barwright's optional additions.
 import { InputError, isInputError } from './InputError.ts';
 import { parseBarFile } from './barFile.ts';
-import type { SessionLogStep } from './sessionFile.ts';
+import type { SessionLogStep } from './sessionFileTypes.ts';
 
 /** True for a plain JSON object (not null, not an array). */
 export function isJsonObject(value: unknown): value is Record<string, unknown> {

@@ -2,7 +2,7 @@
 // at the instrument's A4, and how far measured or predicted partials sit from them in cents.
 import { cents, sharpOrFlat } from '../pitch/cents.ts';
 import { noteToHz } from '../pitch/noteToHz.ts';
-import { InputError } from './InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import type { ProjectBar, ProjectFile, Register } from './projectFileTypes.ts';
 
 /** The register a bar belongs to; throws InputError when the bar names none of the instrument's. */

@@ -3,7 +3,7 @@
 // register, and every bar with its blank, its shape now, its plan and its session log. Bars embed
 // the contract's bar-file and session-file shapes so each can be exported to the CLI as is.
 
-import type { BarFile, BarFileMaterial } from './barFile.ts';
+import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */

@@ -1,7 +1,7 @@
 // Reading and validating chime-set files (`*.chimes.json`, format "barwright.chime-set"): a scale
 // of notes cut from one tube or rod stock.
-import { checkA4 } from '../pitch/noteToHz.ts';
-import { parseNote } from '../pitch/parseNote.ts';
+import { checkA4 } from './concertPitch.ts';
+import { parseNote } from './noteName.ts';
 import { parseBarFile, type BarFileMaterial } from './barFile.ts';
 import { InputError, isInputError } from './InputError.ts';
 

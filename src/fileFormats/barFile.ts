@@ -1,5 +1,5 @@
 import { InputError } from './InputError.ts';
-import { findMaterialPreset, materialPresets } from '../material/materialPresets.ts';
+import { isMaterialPresetName, materialPresetNames } from './materialPresetNames.ts';
 
 /** The bar file's section, in millimetres (contract: `*.bar.json`). */
 export type BarFileSection =
@@ -82,8 +82,8 @@ function parseMaterial(source: string, value: unknown): BarFileMaterial {
   if (!isObject(value)) throw new InputError(source, 'material', 'must be an object with E_GPa and density_kg_m3, or a preset');
   const shear_coefficient = parseShearCoefficient(source, value.shear_coefficient);
   if (value.preset !== undefined) {
-    if (typeof value.preset !== 'string' || !findMaterialPreset(value.preset))
-      throw new InputError(source, 'material.preset', `unknown preset ${JSON.stringify(value.preset)} (known: ${materialPresets.map((p) => p.name).join(', ')})`);
+    if (!isMaterialPresetName(value.preset))
+      throw new InputError(source, 'material.preset', `unknown preset ${JSON.stringify(value.preset)} (known: ${materialPresetNames.join(', ')})`);
     return shear_coefficient === undefined ? { preset: value.preset } : { preset: value.preset, shear_coefficient };
   }
   const material: BarFileMaterial = {

@@ -1,7 +1,7 @@
-import { parseNote } from '../pitch/parseNote.ts';
-import { setDesign } from '../project/projectFileEdits.ts';
-import type { ProjectFile } from '../project/projectFileTypes.ts';
-import type { KeyboardPlan } from './planKeyboard.ts';
+import { parseNote } from '../fileFormats/noteName.ts';
+import { setDesign } from './projectFileEdits.ts';
+import type { ProjectFile } from './projectFileTypes.ts';
+import type { KeyboardPlan } from '../instrument/planKeyboard.ts';
 
 /** What storePlanInProject did. */
 export interface StoredPlan {

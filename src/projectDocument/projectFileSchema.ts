@@ -1,11 +1,11 @@
 // zod schemas for the project file and the bar and session files it embeds. Rules read as plain
 // sentences so a rejected import names the field and the rule broken (see projectFileIssues.ts).
 import { z } from 'zod';
-import { parseNote } from '../pitch/parseNote.ts';
-import { findMaterialPreset } from '../material/materialPresets.ts';
-import { parseBarFile } from './barFile.ts';
-import { parseSessionFile } from './sessionFile.ts';
-import { isInputError } from './InputError.ts';
+import { parseNote } from '../fileFormats/noteName.ts';
+import { isMaterialPresetName } from '../fileFormats/materialPresetNames.ts';
+import { parseBarFile } from '../fileFormats/barFile.ts';
+import { parseSessionFile } from '../fileFormats/sessionFile.ts';
+import { isInputError } from '../fileFormats/InputError.ts';
 import { keyboardPlanRecordSchema } from './projectKeyboardPlan.ts';
 
 /** A finite number > 0 with a unit in the rule. */
@@ -31,7 +31,7 @@ const isoTime = z.string({ error: 'must be a date and time (ISO 8601)' }).refine
 /** Bar-file material: explicit values or a preset name. */
 export const barMaterialSchema = z.union(
   [
-    z.looseObject({ preset: z.string({ error: 'must be a preset name' }).refine((name) => findMaterialPreset(name) !== undefined, { error: 'must name one of the material presets' }), label: z.string().optional() }),
+    z.looseObject({ preset: z.string({ error: 'must be a preset name' }).refine((name) => isMaterialPresetName(name), { error: 'must name one of the material presets' }), label: z.string().optional() }),
     z
       .looseObject({
         E_GPa: positive('GPa'),

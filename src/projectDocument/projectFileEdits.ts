@@ -1,8 +1,8 @@
 // Pure edits of a project: each takes a project and returns a new one (the input is never
 // mutated), validating what the maker changed and keeping session targets in step with the
 // instrument. Times are passed in (ISO 8601) so the edits stay pure and testable.
-import { parseBarFile, type BarFile } from './barFile.ts';
-import { InputError } from './InputError.ts';
+import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
 
 /** Slack (mm) when checking that a shape never adds material to the one before it. */

@@ -1,11 +1,11 @@
 // The keyboard file the workbench plans from: derived from a project's instrument, registers and
 // the keyboard bars already set up, over a range of notes the maker chooses.
-import { midiToNoteName } from '../pitch/hzToNote.ts';
-import { parseNote } from '../pitch/parseNote.ts';
-import type { BarFileMaterial } from './barFile.ts';
-import { InputError } from './InputError.ts';
-import { parseKeyboardFile } from './keyboardFile.ts';
-import type { KeyboardFile, ResonatorEntry, SectionEntry, TuningEntry } from './keyboardFileTypes.ts';
+import { midiToNoteName } from '../fileFormats/noteName.ts';
+import { parseNote } from '../fileFormats/noteName.ts';
+import type { BarFileMaterial } from '../fileFormats/barFile.ts';
+import { InputError } from '../fileFormats/InputError.ts';
+import { parseKeyboardFile } from '../fileFormats/keyboardFile.ts';
+import type { KeyboardFile, ResonatorEntry, SectionEntry, TuningEntry } from '../fileFormats/keyboardFileTypes.ts';
 import type { ProjectBar, ProjectFile, Register } from './projectFileTypes.ts';
 
 /** What the maker chooses when planning from a project: which notes, and whether cut blanks keep their length. */

@@ -1,6 +1,6 @@
 // Turning zod's validation issues into barwright's `source: field: rule` errors.
 import type { z } from 'zod';
-import { InputError } from './InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 
 /** Writes a zod path as a field name: `bars[2].blank.profile_mm[3]`. */
 export function formatFieldPath(path: readonly PropertyKey[]): string {

@@ -1,4 +1,4 @@
-import { InputError } from '../project/InputError.ts';
+import { InputError } from './InputError.ts';
 
 /** A note name in scientific pitch notation, taken apart. */
 export interface ParsedNote {
@@ -61,4 +61,19 @@ export function parseNote(name: string, source = 'note', field = 'note'): Parsed
   if (!Number.isFinite(alteration) || octave < -1 || octave > 10) throw new InputError(source, field, rule);
   const midi = 12 * (octave + 1) + letterSemitones[letter] + alteration;
   return { letter, alteration, octave, midi };
+}
+
+/** Sharp and flat spellings of the twelve pitch classes, from C. */
+const sharpNames = ['C', 'C#', 'D', 'D#', 'E', 'F', 'F#', 'G', 'G#', 'A', 'A#', 'B'] as const;
+const flatNames = ['C', 'Db', 'D', 'Eb', 'E', 'F', 'Gb', 'G', 'Ab', 'A', 'Bb', 'B'] as const;
+
+/**
+ * Name of an integer MIDI note number in scientific pitch notation (C4 = 60), spelt with sharps
+ * (`C#4`) or flats (`Db4`).
+ */
+export function midiToNoteName(midi: number, spelling: 'sharp' | 'flat' = 'sharp'): string {
+  const rounded = Math.round(midi);
+  const pitchClass = ((rounded % 12) + 12) % 12;
+  const octave = Math.floor(rounded / 12) - 1;
+  return `${(spelling === 'flat' ? flatNames : sharpNames)[pitchClass]}${octave}`;
 }

@@ -1,5 +1,5 @@
-import { midiToNoteName } from '../pitch/hzToNote.ts';
-import { parseNote } from '../pitch/parseNote.ts';
+import { midiToNoteName } from './noteName.ts';
+import { parseNote } from './noteName.ts';
 import { InputError } from './InputError.ts';
 import type { NoteSpan } from './keyboardFileTypes.ts';
 

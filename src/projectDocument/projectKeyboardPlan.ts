@@ -4,11 +4,10 @@
 // the bar-file rules.
 import { z } from 'zod';
 import type { KeyboardPlan } from '../instrument/planKeyboard.ts';
-import { parseBarFile } from './barFile.ts';
-import { isInputError } from './InputError.ts';
-import { parseKeyboardFile } from './keyboardFile.ts';
-import type { KeyboardFile } from './keyboardFileTypes.ts';
-import type { ProjectFile } from './projectFileTypes.ts';
+import { parseBarFile } from '../fileFormats/barFile.ts';
+import { isInputError } from '../fileFormats/InputError.ts';
+import { parseKeyboardFile } from '../fileFormats/keyboardFile.ts';
+import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
 
 /** A project's stored keyboard plan: its input, the plan (maybe cut short) and when it was stored. */
 export interface KeyboardPlanRecord {
@@ -62,18 +61,3 @@ export const keyboardPlanRecordSchema = z.looseObject({
     cautions: z.array(text),
   }),
 });
-
-/**
- * The project with its keyboard plan replaced (pure): the keyboard file planned from, the plan
- * and the time. A plan cut short is kept too, so the next run resumes from it.
- */
-export function withKeyboardPlan(project: ProjectFile, keyboard: KeyboardFile, plan: KeyboardPlan, at: string): ProjectFile {
-  return { ...project, keyboard_plan: structuredClone({ keyboard, plan, planned_at: at }) };
-}
-
-/** The project without a stored keyboard plan (pure). */
-export function withoutKeyboardPlan(project: ProjectFile): ProjectFile {
-  const next = { ...project };
-  delete next.keyboard_plan;
-  return next;
-}

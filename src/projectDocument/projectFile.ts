@@ -1,19 +1,11 @@
 // Reading, validating and writing barwright project files (`*.project.json`).
-import { InputError } from './InputError.ts';
+import { InputError } from '../fileFormats/InputError.ts';
 import { migrateProjectFile } from './projectFileMigrations.ts';
 import { barFileSchema, projectFileSchema, sessionFileSchema } from './projectFileSchema.ts';
 import { issuesToInputErrors, plainRules } from './projectFileIssues.ts';
-import type { BarFile } from './barFile.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
 import type { ProjectBar, ProjectFile, SessionFile } from './projectFileTypes.ts';
 
-export * from './projectFileTypes.ts';
-export type { BarFile, BarFileMaterial, BarFileSection } from './barFile.ts';
-export { migrateProjectFile } from './projectFileMigrations.ts';
-export { formatFieldPath } from './projectFileIssues.ts';
-export * from './projectFileEdits.ts';
-export * from './projectFileTargets.ts';
-export * from './projectKeyboardFile.ts';
-export * from './projectKeyboardPlan.ts';
 
 /** Outcome of checking a project file: the project, or every problem found. */
 export type ProjectFileCheck = { ok: true; project: ProjectFile } | { ok: false; errors: InputError[] };
