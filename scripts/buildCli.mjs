@@ -12,7 +12,8 @@
 // and exits 0, so the install itself succeeds; the launcher then says how to build.
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { newestSourceTime } from './cliSources.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const target = join(root, 'build', 'cli');
@@ -27,8 +28,9 @@ try {
 
 const started = performance.now();
 // Sources saved while this build runs must count as newer than it: the bundle's time is set to
-// the moment the build started (the launcher compares it with the sources' times).
-const startedAt = new Date();
+// the moment the build started (the launcher compares it with the sources' times), or to the
+// newest source's time if that lies ahead (a clock skew must not make every start rebuild).
+const startedAt = new Date(Math.max(Date.now(), Math.ceil(newestSourceTime(pathToFileURL(`${root}/`))) + 1));
 mkdirSync(join(root, 'build'), { recursive: true });
 const staging = mkdtempSync(join(root, 'build', '.cli-'));
 chmodSync(staging, 0o755);

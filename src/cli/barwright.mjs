@@ -4,13 +4,14 @@
 // (scripts/buildCli.mjs): no TypeScript loader at run time, so a command starts in well under a
 // second. In a checkout whose sources are newer than that build (an edit, a pull), it rebuilds
 // first and says so in one line on stderr; without esbuild to rebuild with, it says what to run.
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
+import { newestSourceTime } from '../../scripts/cliSources.mjs';
 
 const root = new URL('../../', import.meta.url);
 const built = new URL('build/cli/barwright.js', root);
 
-/** Modification time of the build (set to when the build started), or -1 when there is none. */
+/** Modification time of the build (when the build started, or its newest source if later), or -1 when there is none. */
 function buildTime() {
   try {
     return statSync(built).mtimeMs;
@@ -19,29 +20,13 @@ function buildTime() {
   }
 }
 
-/** The newest modification time among the sources the build is made from (-1 outside a checkout). */
-function newestSourceTime() {
-  const source = new URL('src/', root);
-  if (!existsSync(source)) return -1;
-  let newest = -1;
-  for (const name of readdirSync(source, { recursive: true })) {
-    if (!/\.(ts|mjs|js|json)$/.test(name)) continue;
-    newest = Math.max(newest, statSync(new URL(name, source)).mtimeMs);
-  }
-  for (const file of ['package.json', 'package-lock.json', 'scripts/buildCli.mjs']) {
-    const url = new URL(file, root);
-    if (existsSync(url)) newest = Math.max(newest, statSync(url).mtimeMs);
-  }
-  return newest;
-}
-
 const builtAt = buildTime();
-if (builtAt < 0 || newestSourceTime() > builtAt) {
+if (builtAt < 0 || newestSourceTime(root) > builtAt) {
   const missing = builtAt < 0;
   if (existsSync(new URL('node_modules/esbuild/package.json', root))) {
     const build = spawnSync(process.execPath, [new URL('scripts/buildCli.mjs', root).pathname, '--quiet'], { stdio: ['ignore', 'ignore', 'inherit'] });
     if (build.status !== 0) process.exit(1);
-    process.stderr.write(`barwright: ${missing ? 'the command line was not built yet' : 'the sources changed since the command line was built'}; built it again (build/cli)\n`);
+    process.stderr.write(`barwright: ${missing ? 'the command line was not built yet; built it' : 'the sources changed since the command line was built; built it again'} (build/cli)\n`);
   } else if (missing) {
     process.stderr.write('barwright: the command line is not built (build/cli/barwright.js is missing) and esbuild is not installed to build it: run `npm install` (dev dependencies included), or `npm run build:cli`\n');
     process.exit(1);
