@@ -29,8 +29,9 @@ export class BwUpdateNotice extends LitElement {
       .problem {
         color: var(--bw-problem-ink);
       }
+      /* Not printed, and not in the flow of a print (a named-page view would start with a blank page). */
       @media print {
-        .notice {
+        :host {
           display: none;
         }
       }
