@@ -10,10 +10,10 @@
 //
 // Without esbuild (`npm install --omit=dev` leaves the dev dependencies out) it prints one line
 // and exits 0, so the install itself succeeds; the launcher then says how to build.
-import { chmodSync, existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { newestSourceTime } from './cliSources.mjs';
+import { fileURLToPath } from 'node:url';
+import { alwaysSources, sourceListName } from './cliSources.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const target = join(root, 'build', 'cli');
@@ -28,14 +28,13 @@ try {
 
 const started = performance.now();
 // Sources saved while this build runs must count as newer than it: the bundle's time is set to
-// the moment the build started (the launcher compares it with the sources' times), or to the
-// newest source's time if that lies ahead (a clock skew must not make every start rebuild).
-const startedAt = new Date(Math.max(Date.now(), Math.ceil(newestSourceTime(pathToFileURL(`${root}/`))) + 1));
+// the moment the build started (the launcher compares it with the sources' times).
+const startedAt = Date.now();
 mkdirSync(join(root, 'build'), { recursive: true });
 const staging = mkdtempSync(join(root, 'build', '.cli-'));
 chmodSync(staging, 0o755);
 try {
-  await esbuild.build({
+  const result = await esbuild.build({
     absWorkingDir: root,
     entryPoints: { barwright: 'src/cli/main.ts', keyboardBarWorker: 'src/instrument/keyboardBarWorker.ts' },
     outdir: staging,
@@ -49,11 +48,21 @@ try {
     minify: false,
     legalComments: 'none',
     logLevel: 'warning',
+    metafile: true,
     // CommonJS dependencies bundled into ESM may call require() for Node's own modules.
     banner: { js: "import { createRequire as __barwrightCreateRequire } from 'node:module'; const require = __barwrightCreateRequire(import.meta.url);" },
   });
   writeFileSync(join(staging, 'package.json'), '{ "type": "module" }\n');
-  utimesSync(join(staging, 'barwright.js'), startedAt, startedAt);
+  // The launcher's staleness check: every file of this repository the bundles were made from
+  // (dependencies count through the lock file).
+  const sources = [...new Set([...Object.keys(result.metafile.inputs).filter((file) => !file.includes('node_modules/')), ...alwaysSources])].sort();
+  writeFileSync(join(staging, sourceListName), `${JSON.stringify(sources, null, 1)}\n`);
+  // A source dated in the future (a clock skew) must not make every start rebuild: then the
+  // stamp is that date. Files saved during the build are dated before now and stay newer.
+  const now = Date.now();
+  const ahead = Math.max(...sources.map((file) => statSync(join(root, file)).mtimeMs).filter((time) => time > now));
+  const stamp = new Date(Number.isFinite(ahead) ? Math.ceil(ahead) + 1 : startedAt);
+  utimesSync(join(staging, 'barwright.js'), stamp, stamp);
   const previous = `${target}.previous-${process.pid}`;
   if (existsSync(target)) renameSync(target, previous);
   renameSync(staging, target);

@@ -41,13 +41,21 @@ const cases: Case[] = [
     : []),
 ];
 
-/** Wall time of one whole process, ms; throws if it fails (a benchmark of a failing command means nothing). */
-function timeProcess(args: string[]): number {
+/**
+ * Preloaded into every timed process (bare Node too): at exit it writes the process's CPU time
+ * (all threads, user + system, µs) to stderr after a marker. CPU time moves far less with the
+ * machine's load than wall time, so it is reported beside it.
+ */
+const cpuProbe = `data:text/javascript,process.on('exit',()=>{const u=process.cpuUsage();process.stderr.write('\\n@cpu '+(u.user+u.system)+'\\n')})`;
+
+/** Wall and CPU time of one whole process, ms; throws if it fails (a benchmark of a failing command means nothing). */
+function timeProcess(args: string[]): { wall: number; cpu: number } {
   const start = performance.now();
-  const result = spawnSync(process.execPath, args, { cwd: root, encoding: 'utf8' });
-  const elapsed = performance.now() - start;
-  if (result.status !== 0) throw new Error(`node ${args.join(' ')} exited ${result.status}: ${result.stderr}`);
-  return elapsed;
+  const result = spawnSync(process.execPath, ['--import', cpuProbe, ...args], { cwd: root, encoding: 'utf8' });
+  const wall = performance.now() - start;
+  const probe = /\n@cpu (\d+)\n$/.exec(result.stderr);
+  if (result.status !== 0 || !probe) throw new Error(`node ${args.join(' ')} exited ${result.status}: ${result.stderr}`);
+  return { wall, cpu: Number(probe[1]) / 1000 };
 }
 
 function median(values: readonly number[]): number {
@@ -58,8 +66,9 @@ function median(values: readonly number[]): number {
 
 /**
  * Command-line start-up as a maker meets it: whole processes (`node <launcher> …`, what the
- * `barwright` bin runs, build/cli/barwright.js behind it), median of 11 runs each, against a bare `node -e 0` timed in the same
- * run, the cases taking turns so a busy moment hits all alike. One untimed run of each first
+ * `barwright` bin runs, build/cli/barwright.js behind it), median of 11 runs each, against a bare
+ * `node -e 0` timed in the same run, the cases taking turns so a busy moment hits all alike; the
+ * processes' CPU time beside the wall time. One untimed run of each first
  * (it also rebuilds a stale build/cli, as the launcher would). Targets: --help at most 150 ms and
  * modes at most 300 ms more than bare Node.
  */
@@ -68,13 +77,22 @@ export const startupSuite: BenchSuite = {
   run() {
     for (const entry of cases) timeProcess(entry.args);
     const times = new Map<string, number[]>(cases.map((entry) => [entry.key, []]));
-    for (let run = 0; run < runs; run++) for (const entry of cases) times.get(entry.key)!.push(timeProcess(entry.args));
+    const cpuTimes = new Map<string, number[]>(cases.map((entry) => [entry.key, []]));
+    for (let run = 0; run < runs; run++) {
+      for (const entry of cases) {
+        const { wall, cpu } = timeProcess(entry.args);
+        times.get(entry.key)!.push(wall);
+        cpuTimes.get(entry.key)!.push(cpu);
+      }
+    }
     const bare = median(times.get('node')!);
+    const bareCpu = median(cpuTimes.get('node')!);
     return cases.map((entry): BenchRow => {
       const value = median(times.get(entry.key)!);
-      if (entry.key === 'node') return { suite: 'startup', case: entry.name, median_ms: value, runs };
+      const cpu = median(cpuTimes.get(entry.key)!);
+      if (entry.key === 'node') return { suite: 'startup', case: entry.name, median_ms: value, runs, detail: { cpu_ms: cpu } };
       const excess = value - bare;
-      const detail: Record<string, number | string> = { over_bare_node_ms: excess };
+      const detail: Record<string, number | string> = { over_bare_node_ms: excess, cpu_over_bare_node_ms: cpu - bareCpu };
       if (entry.budgetMs !== undefined) Object.assign(detail, { budget_ms: entry.budgetMs, within_budget: excess <= entry.budgetMs ? 'yes' : 'no' });
       if (entry.beforeMs !== undefined) detail.issue_before_over_bare_node_ms = entry.beforeMs;
       return { suite: 'startup', case: entry.name, median_ms: value, runs, detail };
