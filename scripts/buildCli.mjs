@@ -8,8 +8,9 @@
 // Writes to a fresh temporary folder and renames it into place, so a barwright started while a
 // build runs sees either the old build or the new one, never half of one.
 //
-// Without esbuild (`npm install --omit=dev` leaves the dev dependencies out) it prints one line
-// and exits 0, so the install itself succeeds; the launcher then says how to build.
+// Without esbuild (`npm install --omit=dev` leaves the dev dependencies out) it prints one line;
+// with --if-possible (the `prepare` script) it exits 0, so the install itself succeeds, and the
+// launcher then says how to build.
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, renameSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -22,8 +23,9 @@ let esbuild;
 try {
   esbuild = await import('esbuild');
 } catch {
-  process.stderr.write('barwright: esbuild is not installed (dev dependencies left out?), so the command line was not built: run `npm install` (with dev dependencies), then `npm run build:cli`\n');
-  process.exit(0);
+  process.stderr.write('barwright: esbuild (a dev dependency) is not installed, so the command line was not built: run `npm install` without --omit=dev\n');
+  // From `prepare` (--if-possible) the install goes on; asked for by hand, it is a failure.
+  process.exit(process.argv.includes('--if-possible') ? 0 : 1);
 }
 
 const started = performance.now();

@@ -28,10 +28,10 @@ if (builtAt < 0 || newestSourceTime(root) > builtAt) {
     if (build.status !== 0) process.exit(1);
     process.stderr.write(`barwright: ${missing ? 'the command line was not built yet; built it' : 'the sources changed since the command line was built; built it again'} (build/cli)\n`);
   } else if (missing) {
-    process.stderr.write('barwright: the command line is not built (build/cli/barwright.js is missing) and esbuild is not installed to build it: run `npm install` (dev dependencies included), or `npm run build:cli`\n');
+    process.stderr.write('barwright: the command line is not built (build/cli/barwright.js is missing) and esbuild, a dev dependency, is not installed to build it: run `npm install` without --omit=dev\n');
     process.exit(1);
   } else {
-    process.stderr.write('barwright: warning: build/cli is older than the sources and esbuild is not installed to rebuild it: running the older build (`npm install` with dev dependencies, then `npm run build:cli`, brings it up to date)\n');
+    process.stderr.write('barwright: warning: build/cli is older than the sources and esbuild, a dev dependency, is not installed to rebuild it: running the older build (`npm install` without --omit=dev brings it up to date)\n');
   }
 }
 
