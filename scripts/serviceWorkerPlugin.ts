@@ -10,7 +10,7 @@ import { transform } from 'esbuild';
 import type { Plugin } from 'vite';
 
 /** Where the worker lands in the build, relative to its root (and so its scope: the whole app). */
-export const serviceWorkerFileName = 'sw.js';
+const serviceWorkerFileName = 'sw.js';
 
 /** Options of serviceWorkerPlugin. */
 export interface ServiceWorkerPluginOptions {
@@ -40,7 +40,7 @@ function notServed(fileName: string): boolean {
  * The precache list and build id for a build's files: paths sorted, and the first 16 hex digits
  * of a SHA-256 over every path and its bytes.
  */
-export function precacheManifest(files: ReadonlyMap<string, string | Uint8Array>): { files: string[]; build: string } {
+function precacheManifest(files: ReadonlyMap<string, string | Uint8Array>): { files: string[]; build: string } {
   const paths = [...files.keys()].filter((path) => !notServed(path)).sort();
   const hash = createHash('sha256');
   for (const path of paths) {

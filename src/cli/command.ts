@@ -35,7 +35,7 @@ export function parseOptions<T extends NonNullable<ParseArgsConfig['options']>>(
     const parsed = parseArgs({ args, options, allowPositionals: true, strict: true });
     return { values: parsed.values, positionals: parsed.positionals };
   } catch (error) {
-    const message = error instanceof Error ? error.message.split('\n')[0] : String(error);
+    const message = error instanceof Error ? (error.message.split('\n')[0] ?? error.message) : String(error);
     throw new InputError('command line', 'options', message);
   }
 }

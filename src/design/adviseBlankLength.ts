@@ -13,6 +13,7 @@ import type { SolveBudget } from './fitShape.ts';
 import type { DesignRunOptions } from './designBar.ts';
 import type { ShapeStart } from './searchShapes.ts';
 import { roundDecimals } from '../fileFormats/roundDecimals.ts';
+import { millimetre as mm } from '../units/units.ts';
 
 /** The blank a maker would buy: its section and material (bar-file terms, mm); no length yet. */
 export interface BlankSpec {
@@ -65,7 +66,6 @@ export interface BlankAdvice {
   solves: number;
 }
 
-const mm = 1e-3;
 /** Candidate lengths as fractions of the uncut length, longest first (step ×0.92). */
 const scanFractions = Array.from({ length: 12 }, (_, i) => 0.96 * 0.92 ** i);
 /**

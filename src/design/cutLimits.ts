@@ -1,6 +1,7 @@
 import { InputError } from '../fileFormats/InputError.ts';
 import type { CutLimitsInput } from '../fileFormats/cutLimitsInput.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
+import { millimetre as mm } from '../units/units.ts';
 
 /**
  * What a workshop can cut, in SI (metres; slope dimensionless). Shared by the undercut designer
@@ -50,8 +51,6 @@ export const defaultUncutEndFraction = 0.18;
 export const defaultMaxSlope = 0.5;
 /** Default smallest tool radius (m): 20 mm, a 40 mm sanding drum (common practice). */
 export const defaultMinToolRadius = 0.02;
-
-const mm = 1e-3;
 
 /** The default workshop limits for a blank (SI). Shortening is off by default: length fixed. */
 export function defaultCutLimits(blank: CutBlank): CutLimits {

@@ -14,6 +14,7 @@ import { resolveDesignTarget, type DesignTarget, type DesignTargetInput } from '
 import { bindingLimits, shortfallReason, type BindingLimit, type RatioProbe } from './explainDesign.ts';
 import type { SolveBudget } from './fitShape.ts';
 import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
+import { millimetre as mm } from '../units/units.ts';
 
 /** What to design: the target, the workshop limits (mm) and solver choices. */
 export interface DesignRequest {
@@ -76,8 +77,6 @@ export interface DesignResult {
   warnings: string[];
   cautions: string[];
 }
-
-const mm = 1e-3;
 
 /** Finite-element solves a design may use by default. */
 export const defaultMaxSolves = 600;

@@ -58,7 +58,7 @@ export interface ShapeEvaluation {
 const centsPerLogEigenvalue = 1200 / Math.LN2 / 2;
 
 /** Solves the bending modes of a bar whose thickness at the grid stations is `thickness` (m). */
-export function solveProfile(problem: DesignProblem, thickness: Float64Array, modes: number): BendingSolution {
+function solveProfile(problem: DesignProblem, thickness: Float64Array, modes: number): BendingSolution {
   const profile = { positions: problem.space.grid.positions, thicknesses: thickness };
   const line: BeamLine = { ...problem.line, profile };
   return solveBendingLine(line, buildMesh(profile, problem.elements), problem.theory, modes);

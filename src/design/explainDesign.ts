@@ -1,11 +1,11 @@
 import type { CutLimits } from './cutLimits.ts';
 import type { DesignGrid } from './designGrid.ts';
 import type { DesignTarget } from './designTarget.ts';
+import { millimetre as mm } from '../units/units.ts';
 
 /** A workshop limit a design presses against. */
 export type BindingLimit = 'min-thickness' | 'uncut-end' | 'max-slope' | 'tool-radius';
 
-const mm = 1e-3;
 const fmt = (metres: number): string => `${+(metres / mm).toFixed(1)} mm`;
 
 /**

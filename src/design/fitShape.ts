@@ -1,5 +1,5 @@
 import { evaluateShape, type DesignProblem, type ShapeEvaluation } from './evaluateShape.ts';
-import { solveQuadraticProgram } from './quadraticProgram.ts';
+import { solveQuadraticProgram } from '../optimize/quadraticProgram.ts';
 import type { ShapeFamily } from './ShapeFamily.ts';
 import { surfaceConstraints, worstViolation, type SurfaceConstraints } from './surfaceConstraints.ts';
 
@@ -201,5 +201,6 @@ function constrainedStep(
     for (let a = 0; a < m; a++) constraints[row * m + a] = surface.jacobian[c * m + a]! * 1e3;
     lowerBounds[row] = (Math.min(constraintMargin, g) - g) * 1e3;
   }
-  return solveQuadraticProgram({ size: m, hessian, gradient, constraintCount: count, constraints, lowerBounds });
+  const solution = solveQuadraticProgram({ size: m, hessian, gradient, constraintCount: count, constraints, lowerBounds });
+  return solution.status === 'optimal' || solution.status === 'iteration-limit' ? solution.x : null;
 }

@@ -1,6 +1,6 @@
 import { evaluateShape, type DesignProblem, type ShapeEvaluation } from './evaluateShape.ts';
 import { centsCost, type FittedShape, type SolveBudget } from './fitShape.ts';
-import { solveQuadraticProgram } from './quadraticProgram.ts';
+import { solveQuadraticProgram } from '../optimize/quadraticProgram.ts';
 import { surfaceConstraints, worstViolation } from './surfaceConstraints.ts';
 
 /** Fraction of each tolerance the linearised steps aim inside, and the fraction a trial may reach. */
@@ -64,7 +64,8 @@ export function reduceRemoval(problem: DesignProblem, fit: FittedShape, budget: 
     const hessian = new Float64Array(m * m);
     for (let a = 0; a < m; a++) hessian[a * m + a] = mu;
     const gradient = Float64Array.from(current.volumeGradient, (v) => v / volumeScale);
-    const step = solveQuadraticProgram({ size: m, hessian, gradient, constraintCount: rows, constraints: A, lowerBounds: b });
+    const solution = solveQuadraticProgram({ size: m, hessian, gradient, constraintCount: rows, constraints: A, lowerBounds: b });
+    const step = solution.status === 'optimal' || solution.status === 'iteration-limit' ? solution.x : null;
     if (!step) {
       mu *= 4;
       continue;

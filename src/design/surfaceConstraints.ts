@@ -1,7 +1,7 @@
 import type { DesignProblem } from './evaluateShape.ts';
 
 /** Which limit a surface constraint row expresses. */
-export type SurfaceConstraintKind = 'max-slope' | 'tool-radius';
+type SurfaceConstraintKind = 'max-slope' | 'tool-radius';
 
 /** Linear(ised) workshop constraints on an arch surface, g(q) ≥ 0, in metres of thickness. */
 export interface SurfaceConstraints {

@@ -1,3 +1,4 @@
+import { millimetre } from '../units/units.ts';
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { gaussLegendre } from '../fe/gaussLegendre.ts';
 import { barModelFromFile } from '../modes/BarModel.ts';
@@ -67,8 +68,8 @@ export function whereToCutMap(bar: BarFile, options: CutEffectOptions = {}, sour
   for (let mode = 0; mode < Math.min(partials, solution.frequencies.length); mode++) {
     const lambda = solution.eigenvalues[mode]!;
     const cents = positions.map((positionMm) => {
-      const a = Math.max(0, positionMm * 1e-3 - (strip * 1e-3) / 2);
-      const b = Math.min(length, positionMm * 1e-3 + (strip * 1e-3) / 2);
+      const a = Math.max(0, positionMm * millimetre - (strip * millimetre) / 2);
+      const b = Math.min(length, positionMm * millimetre + (strip * millimetre) / 2);
       // Piecewise Gauss between the mesh nodes inside the strip (the density is smooth within an
       // element and kinks at nodes and stations).
       const breaks = [a, ...Array.from(nodes).filter((x) => x > a + 1e-12 && x < b - 1e-12), b];
@@ -78,7 +79,7 @@ export function whereToCutMap(bar: BarFile, options: CutEffectOptions = {}, sour
         const span = breaks[piece + 1]! - start;
         stripRule.points.forEach((xi, g) => (integral += stripRule.weights[g]! * span * bendingSensitivityDensity(solution, mode, start + xi * span)));
       }
-      const change = -depth * 1e-3 * integral;
+      const change = -depth * millimetre * integral;
       return roundDecimals(((1200 / Math.LN2) * change) / (2 * lambda), 3);
     });
     result.push({ partial: mode + 1, hz: roundDecimals(solution.frequencies[mode]!, 3), cents });

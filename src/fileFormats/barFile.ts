@@ -1,22 +1,13 @@
 import { InputError } from './InputError.ts';
-import { isMaterialPresetName, materialPresetNames } from './materialPresetNames.ts';
+import { parseBarFileGrain, parseBarFileMaterial, type BarFileGrain, type BarFileMaterial } from './barFileMaterial.ts';
+
+export type { BarFileGrain, BarFileMaterial } from './barFileMaterial.ts';
 
 /** The bar file's section, in millimetres (contract: `*.bar.json`). */
 export type BarFileSection =
   | { shape: 'rect'; width_mm: number; thickness_mm: number }
   | { shape: 'tube'; outer_diameter_mm: number; wall_mm: number }
   | { shape: 'round'; diameter_mm: number };
-
-/** The bar file's material: explicit values (GPa, kg/m³) or a preset name. */
-export type BarFileMaterial =
-  | {
-      E_GPa: number;
-      density_kg_m3: number;
-      G_GPa?: number;
-      poisson?: number;
-      shear_coefficient?: number;
-    }
-  | { preset: string; shear_coefficient?: number };
 
 /** A bar file (`*.bar.json`, format `barwright.bar` version 1), exactly as the contract gives it. */
 export interface BarFile {
@@ -28,6 +19,19 @@ export interface BarFile {
   /** `[position_mm, thickness_mm]` pairs, rect only; absent means a uniform blank. */
   profile_mm?: [number, number][];
   material: BarFileMaterial;
+  /** How the growth rings run through the thickness (rect wooden bars; default radial). */
+  grain?: BarFileGrain;
+  /** The board or batch the bar was cut from. */
+  lot?: string;
+  /** Cord holes drilled across the width (rect only). */
+  holes?: BarFileHole[];
+}
+
+/** A cord hole drilled across the width, mm: its centre's position from the left end, its diameter, and its height above the underside (default: centred in the thickness there). */
+export interface BarFileHole {
+  x_mm: number;
+  diameter_mm: number;
+  z_mm?: number;
 }
 
 type Json = Record<string, unknown>;
@@ -64,39 +68,6 @@ function parseSection(source: string, value: unknown): BarFileSection {
   }
 }
 
-function parseShearCoefficient(source: string, value: unknown): number | undefined {
-  if (value === undefined) return undefined;
-  if (typeof value !== 'number' || !Number.isFinite(value) || value <= 0 || value > 1)
-    throw new InputError(source, 'material.shear_coefficient', `must be a number greater than 0 and at most 1 (got ${JSON.stringify(value)})`);
-  return value;
-}
-
-function parsePoisson(source: string, value: unknown): number | undefined {
-  if (value === undefined) return undefined;
-  if (typeof value !== 'number' || !Number.isFinite(value) || value <= -1 || value >= 0.5)
-    throw new InputError(source, 'material.poisson', `must be a number between -1 and 0.5 (got ${JSON.stringify(value)})`);
-  return value;
-}
-
-function parseMaterial(source: string, value: unknown): BarFileMaterial {
-  if (!isObject(value)) throw new InputError(source, 'material', 'must be an object with E_GPa and density_kg_m3, or a preset');
-  const shear_coefficient = parseShearCoefficient(source, value.shear_coefficient);
-  if (value.preset !== undefined) {
-    if (!isMaterialPresetName(value.preset))
-      throw new InputError(source, 'material.preset', `unknown preset ${JSON.stringify(value.preset)} (known: ${materialPresetNames.join(', ')})`);
-    return shear_coefficient === undefined ? { preset: value.preset } : { preset: value.preset, shear_coefficient };
-  }
-  const material: BarFileMaterial = {
-    E_GPa: positiveNumber(source, 'material.E_GPa', value.E_GPa, 'GPa'),
-    density_kg_m3: positiveNumber(source, 'material.density_kg_m3', value.density_kg_m3, 'kg/m³'),
-  };
-  if (value.G_GPa !== undefined) material.G_GPa = positiveNumber(source, 'material.G_GPa', value.G_GPa, 'GPa');
-  const poisson = parsePoisson(source, value.poisson);
-  if (poisson !== undefined) material.poisson = poisson;
-  if (shear_coefficient !== undefined) material.shear_coefficient = shear_coefficient;
-  return material;
-}
-
 /** Absolute slack (mm) when comparing a profile's ends and thicknesses with the blank's. */
 const profileSlackMm = 1e-9;
 
@@ -124,6 +95,51 @@ function parseProfile(source: string, value: unknown, length: number, blankThick
   return profile;
 }
 
+/** Longest lot name (characters). */
+const lotLimit = 200;
+
+/** Thickness (mm) of a bar at x (mm): the profile, linear between stations, or the blank. */
+function thicknessAtMm(bar: BarFile, x: number): number {
+  const section = bar.section;
+  if (section.shape !== 'rect') return 0;
+  const profile = bar.profile_mm;
+  if (!profile) return section.thickness_mm;
+  for (let k = 1; k < profile.length; k++) {
+    const [x0, t0] = profile[k - 1]!;
+    const [x1, t1] = profile[k]!;
+    if (x <= x1) return t0 + ((t1 - t0) * (x - x0)) / (x1 - x0);
+  }
+  return profile[profile.length - 1]![1];
+}
+
+function parseHoles(source: string, value: unknown, bar: BarFile): BarFileHole[] {
+  if (bar.section.shape !== 'rect') throw new InputError(source, 'holes', `only a rect bar is drilled for cords across its width (this bar is a ${bar.section.shape})`);
+  if (!Array.isArray(value)) throw new InputError(source, 'holes', 'must be a list such as [{ "x_mm": 88, "diameter_mm": 6 }]');
+  return value.map((item: unknown, index) => {
+    const field = `holes[${index}]`;
+    if (!isObject(item)) throw new InputError(source, field, 'must be an object with x_mm and diameter_mm (and optionally z_mm)');
+    const diameter = positiveNumber(source, `${field}.diameter_mm`, item.diameter_mm, 'mm');
+    const x = item.x_mm;
+    if (typeof x !== 'number' || !Number.isFinite(x)) throw new InputError(source, `${field}.x_mm`, 'must be a number in mm');
+    if (x - diameter / 2 < 0 || x + diameter / 2 > bar.length_mm) throw new InputError(source, `${field}.x_mm`, `a ${diameter} mm hole at ${x} mm does not fit on the ${bar.length_mm} mm bar`);
+    const thickness = Math.min(thicknessAtMm(bar, x - diameter / 2), thicknessAtMm(bar, x), thicknessAtMm(bar, x + diameter / 2));
+    const hole: BarFileHole = { x_mm: x, diameter_mm: diameter };
+    let z = thickness / 2;
+    if (item.z_mm !== undefined) {
+      z = positiveNumber(source, `${field}.z_mm`, item.z_mm, 'mm');
+      hole.z_mm = z;
+    }
+    if (z - diameter / 2 <= 0 || z + diameter / 2 >= thickness)
+      throw new InputError(source, `${field}.diameter_mm`, `a ${diameter} mm hole ${item.z_mm === undefined ? 'centred' : `at ${z} mm above the underside`} breaks out of the bar, which is ${roundTo(thickness)} mm thick there`);
+    return hole;
+  });
+}
+
+/** `value` to 0.01 (for messages). */
+function roundTo(value: number): number {
+  return Math.round(value * 100) / 100;
+}
+
 /**
  * Validates a parsed JSON value as a bar file and returns it typed. Throws InputError naming
  * `source` (a file name), the field and the rule broken, e.g.
@@ -138,7 +154,8 @@ export function parseBarFile(value: unknown, source = 'bar'): BarFile {
   if (value.label !== undefined && typeof value.label !== 'string') throw new InputError(source, 'label', 'must be a string');
   const length_mm = positiveNumber(source, 'length_mm', value.length_mm, 'mm');
   const section = parseSection(source, value.section);
-  const material = parseMaterial(source, value.material);
+  const grain = parseBarFileGrain(source, value.grain);
+  const material = parseBarFileMaterial(source, value.material, grain);
   let profile_mm: [number, number][] | undefined;
   if (value.profile_mm !== undefined) {
     if (section.shape !== 'rect') throw new InputError(source, 'profile_mm', `only a rect section can have a profile (this bar is a ${section.shape})`);
@@ -153,5 +170,14 @@ export function parseBarFile(value: unknown, source = 'bar'): BarFile {
     ...(profile_mm ? { profile_mm } : {}),
     material,
   };
+  if (grain) {
+    if (section.shape !== 'rect') throw new InputError(source, 'grain', `only a rect (wooden) bar has a grain orientation (this bar is a ${section.shape})`);
+    bar.grain = grain;
+  }
+  if (value.lot !== undefined) {
+    if (typeof value.lot !== 'string' || value.lot.trim() === '' || value.lot.length > lotLimit) throw new InputError(source, 'lot', `must be a name of 1 to ${lotLimit} characters`);
+    bar.lot = value.lot;
+  }
+  if (value.holes !== undefined) bar.holes = parseHoles(source, value.holes, bar);
   return bar;
 }

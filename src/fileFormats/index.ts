@@ -8,6 +8,7 @@ export * from './noteName.ts';
 export * from './concertPitch.ts';
 export * from './materialPresetNames.ts';
 export * from './cutLimitsInput.ts';
+export * from './barFileMaterial.ts';
 export * from './barFile.ts';
 export * from './sessionFile.ts';
 export * from './sessionLogEdits.ts';

@@ -1,3 +1,4 @@
+import { millimetre } from '../units/units.ts';
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { solveTorsion } from '../modes/solveTorsion.ts';
 import { chimeEndLoads, chimeModel, type ChimeStock } from './chimeStock.ts';
@@ -56,7 +57,7 @@ const collisionCents = 50;
 export function analyzeChime(stock: ChimeStock, lengthMm: number, options: ChimeAnalysisOptions = {}): ChimeAnalysis {
   const count = Math.max(6, Math.floor(options.partials ?? 6));
   const theory = options.theory ?? 'timoshenko';
-  const model = chimeModel(stock, lengthMm * 1e-3);
+  const model = chimeModel(stock, lengthMm * millimetre);
   const loads = chimeEndLoads(stock);
   const modes = pieceModes(model, { modes: count, theory, endLoads: loads });
   const partials: ChimePartial[] = modes.map((m) => {

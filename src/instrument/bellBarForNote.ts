@@ -1,3 +1,4 @@
+import { millimetre } from '../units/units.ts';
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { analyzeBar } from '../modes/analyzeBar.ts';
 import { barModelFromFile } from '../modes/BarModel.ts';
@@ -62,7 +63,7 @@ export function bellBarForNote(stock: BellBarStock, targetHz: number, options: {
     material: { ...stock.material },
   });
   const probe = barModelFromFile(barAt(1000)).material;
-  const thickness = stock.thickness_mm * 1e-3;
+  const thickness = stock.thickness_mm * millimetre;
   const initial = firstRoot * Math.sqrt((thickness * Math.sqrt(probe.youngModulus / (12 * probe.density))) / (2 * Math.PI * targetHz));
   const solution = lengthForFrequency((length) => pieceModes(barModelFromFile(barAt(length * 1000)), { modes: 1, theory, elements: meshDensity(Math.max(count, 4), theory) })[0]!.hz, targetHz, initial);
   const bar = barAt(solution.length * 1000);

@@ -2,6 +2,7 @@ import { materialFromFile, sectionFromFile, type BarModel } from '../modes/BarMo
 import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import { uniformProfile } from '../section/ThicknessProfile.ts';
 import { cylindricalPlug, type EndLoad } from './endLoad.ts';
+import { gram, millimetre as mm } from '../units/units.ts';
 
 /** The section of chime stock, mm: a tube or a solid rod (bar-file shapes). */
 export type ChimeSection = { shape: 'tube'; outer_diameter_mm: number; wall_mm: number } | { shape: 'round'; diameter_mm: number };
@@ -26,8 +27,6 @@ export interface ChimeStock {
   end_masses?: ChimeEndMass[];
 }
 
-const mm = 1e-3;
-
 /** The bar file of a chime of this stock and length (mm): what `barwright modes` would read. */
 export function chimeBarFile(stock: ChimeStock, lengthMm: number, label?: string): BarFile {
   return { format: 'barwright.bar', version: 1, ...(label ? { label } : {}), length_mm: lengthMm, section: { ...stock.section }, material: { ...stock.material } };
@@ -44,6 +43,6 @@ export function chimeModel(stock: ChimeStock, length: number): BarModel {
 export function chimeEndLoads(stock: ChimeStock): EndLoad[] {
   const bore = stock.section.shape === 'tube' ? stock.section.outer_diameter_mm - 2 * stock.section.wall_mm : stock.section.diameter_mm;
   return (stock.end_masses ?? []).map((load) =>
-    cylindricalPlug(load.end === 'top' ? 'start' : 'end', load.mass_g * 1e-3, load.length_mm * mm, (load.diameter_mm ?? bore) * mm),
+    cylindricalPlug(load.end === 'top' ? 'start' : 'end', load.mass_g * gram, load.length_mm * mm, (load.diameter_mm ?? bore) * mm),
   );
 }

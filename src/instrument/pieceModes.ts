@@ -1,11 +1,11 @@
 import { assembleBending, bendingRigidModes } from '../fe/assembleBending.ts';
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { buildMesh } from '../fe/buildMesh.ts';
-import { lowestModes } from '../eigen/lowestModes.ts';
 import type { BarModel } from '../modes/BarModel.ts';
 import { meshDensity } from '../modes/meshDensity.ts';
 import { bendingFieldsAt, zeroCrossings } from '../modes/modeShape.ts';
-import { bendingLine, type BendingSolution } from '../modes/solveBending.ts';
+import { bendingLine, firstBendingEigenvalueEstimate, type BendingSolution } from '../modes/solveBending.ts';
+import { solveFreeModes } from '../modes/solveFreeModes.ts';
 import { addEndLoad, type EndLoad } from './endLoad.ts';
 
 /** One vertical bending mode of a piece: frequency, ratio to mode 1, node positions (m from x = 0). */
@@ -39,14 +39,9 @@ export function pieceModes(model: BarModel, options: PieceModeOptions = {}): Pie
   const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, theory));
   const system = assembleBending(nodes, line, theory);
   for (const load of options.endLoads ?? []) addEndLoad(system.mass, load.at === 'start' ? 0 : system.mass.size - 2, load);
-  // Shift near −½ of the Euler–Bernoulli mode-1 eigenvalue of the unloaded piece (lowestModes' advice).
-  const properties = new Float64Array(4);
-  line.law.evaluate(model.profile.thicknesses[0]!, properties);
-  const shift = -0.5 * (4.730041 / model.length) ** 4 * (properties[0]! / properties[2]!);
-  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system) });
-  for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
-  const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
-  const solution: BendingSolution = { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };
+  const free = solveFreeModes(system.stiffness, system.mass, { modes, firstEigenvalueEstimate: firstBendingEigenvalueEstimate(line), rigidModes: bendingRigidModes(system) });
+  const frequencies = free.frequencies;
+  const solution: BendingSolution = { line, system, ...free };
   return Array.from(frequencies, (hz, i) => ({
     mode: i + 1,
     hz,

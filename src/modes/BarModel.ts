@@ -1,8 +1,9 @@
 import type { Material } from '../material/Material.ts';
 import { findMaterialPreset } from '../material/materialPresets.ts';
 import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
-import type { Section } from '../section/Section.ts';
+import { sectionDepth, type Section } from '../section/Section.ts';
 import { uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
+import { millimetre as mm, gigapascal as GPa } from '../units/units.ts';
 
 /** A bar in SI units, ready for the solver: length (m), section, thickness profile, material. */
 export interface BarModel {
@@ -12,9 +13,6 @@ export interface BarModel {
   readonly profile: ThicknessProfile;
   readonly material: Material;
 }
-
-const mm = 1e-3;
-const GPa = 1e9;
 
 /** The section of a bar file in SI. */
 export function sectionFromFile(section: BarFileSection): Section {
@@ -67,7 +65,7 @@ export function barModelFromFile(bar: BarFile): BarModel {
       thicknesses: Float64Array.from(bar.profile_mm, ([, t]) => t * mm),
     };
   } else {
-    profile = uniformProfile(length, section.shape === 'rect' ? section.thickness : section.shape === 'round' ? section.diameter : section.outerDiameter);
+    profile = uniformProfile(length, sectionDepth(section));
   }
   return { length, section, profile, material: materialFromFile(bar.material) };
 }

@@ -2,6 +2,7 @@ export * from './BarModel.ts';
 export * from './meshDensity.ts';
 export * from './solveBending.ts';
 export * from './solveTorsion.ts';
+export * from './solveFreeModes.ts';
 export * from './modeShape.ts';
 export * from './bendingSensitivities.ts';
 export * from './collisionWarnings.ts';

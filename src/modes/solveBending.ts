@@ -3,9 +3,9 @@ import type { BeamTheory } from '../fe/beamElementType.ts';
 import type { BeamLine } from '../fe/BeamLine.ts';
 import { buildMesh } from '../fe/buildMesh.ts';
 import { bendingLaw, type BendingPlane } from '../fe/sectionLaw.ts';
-import { lowestModes } from '../eigen/lowestModes.ts';
 import type { BarModel } from './BarModel.ts';
 import { meshDensity } from './meshDensity.ts';
+import { solveFreeModes } from './solveFreeModes.ts';
 
 /** Options for solveBending. */
 export interface BendingOptions {
@@ -39,9 +39,9 @@ export function bendingLine(model: BarModel, plane: BendingPlane = 'vertical'): 
 
 /**
  * Euler–Bernoulli estimate of the lowest free–free eigenvalue ω₁² from length-averaged
- * properties, (4.730/L)⁴·EI/ρA (Blevins 1979, table 8-1): used only to place the shift.
+ * properties, (4.730/L)⁴·EI/ρA (Blevins 1979, table 8-1), rad²/s²: used only to place the shift.
  */
-function firstEigenvalueEstimate(line: BeamLine): number {
+export function firstBendingEigenvalueEstimate(line: BeamLine): number {
   const properties = new Float64Array(4);
   const t = line.profile.thicknesses;
   let bending = 0;
@@ -61,12 +61,14 @@ function firstEigenvalueEstimate(line: BeamLine): number {
  */
 export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: BeamTheory, modes: number, upToHz?: number, tolerance?: number): BendingSolution {
   const system = assembleBending(nodes, line, theory);
-  const shift = -0.1 * firstEigenvalueEstimate(line);
-  const upTo = upToHz === undefined ? undefined : (2 * Math.PI * upToHz) ** 2;
-  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: bendingRigidModes(system), ...(upTo === undefined ? {} : { upTo }), ...(tolerance === undefined ? {} : { tolerance }) });
-  for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
-  const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
-  return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };
+  const free = solveFreeModes(system.stiffness, system.mass, {
+    modes,
+    firstEigenvalueEstimate: firstBendingEigenvalueEstimate(line),
+    rigidModes: bendingRigidModes(system),
+    ...(upToHz === undefined ? {} : { upToHz }),
+    ...(tolerance === undefined ? {} : { tolerance }),
+  });
+  return { line, system, ...free };
 }
 
 /**

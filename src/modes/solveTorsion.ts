@@ -2,9 +2,9 @@ import { assembleTorsion, torsionRigidMode, type TorsionSystem } from '../fe/ass
 import type { BeamLine } from '../fe/BeamLine.ts';
 import { buildMesh } from '../fe/buildMesh.ts';
 import { torsionLaw } from '../fe/sectionLaw.ts';
-import { lowestModes } from '../eigen/lowestModes.ts';
 import type { BarModel } from './BarModel.ts';
 import { meshDensity } from './meshDensity.ts';
+import { solveFreeModes } from './solveFreeModes.ts';
 
 /** Flexible St-Venant torsion modes of a free–free bar. */
 export interface TorsionSolution {
@@ -36,12 +36,14 @@ export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: num
     stiffness += properties[0]!;
     inertia += properties[1]!;
   }
-  const shift = -0.1 * (Math.PI / line.length) ** 2 * (stiffness / inertia);
-  const upTo = upToHz === undefined ? undefined : (2 * Math.PI * upToHz) ** 2;
-  const result = lowestModes(system.stiffness, system.mass, modes, { shift, rigidModes: [torsionRigidMode(system.stiffness.size)], ...(upTo === undefined ? {} : { upTo }), ...(tolerance === undefined ? {} : { tolerance }) });
-  for (const vector of result.vectors) if (vector[0]! < 0) for (let i = 0; i < vector.length; i++) vector[i] = -vector[i]!;
-  const frequencies = Float64Array.from(result.eigenvalues, (l) => Math.sqrt(Math.max(l, 0)) / (2 * Math.PI));
-  return { line, system, eigenvalues: result.eigenvalues, frequencies, vectors: result.vectors };
+  const free = solveFreeModes(system.stiffness, system.mass, {
+    modes,
+    firstEigenvalueEstimate: (Math.PI / line.length) ** 2 * (stiffness / inertia),
+    rigidModes: [torsionRigidMode(system.stiffness.size)],
+    ...(upToHz === undefined ? {} : { upToHz }),
+    ...(tolerance === undefined ? {} : { tolerance }),
+  });
+  return { line, system, ...free };
 }
 
 /** The lowest flexible torsion modes of a free–free bar (1D St-Venant theory). */

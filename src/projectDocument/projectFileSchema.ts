@@ -29,7 +29,7 @@ const noteName = z.string({ error: 'must be a note name such as A2, F#3 or Bb5' 
 const isoTime = z.string({ error: 'must be a date and time (ISO 8601)' }).refine((text) => !Number.isNaN(Date.parse(text)), { error: 'must be a date and time (ISO 8601)' });
 
 /** Bar-file material: explicit values or a preset name. */
-export const barMaterialSchema = z.union(
+const barMaterialSchema = z.union(
   [
     z.looseObject({ preset: z.string({ error: 'must be a preset name' }).refine((name) => isMaterialPresetName(name), { error: 'must name one of the material presets' }), label: z.string().optional() }),
     z

@@ -11,3 +11,19 @@ export type Section =
 export function isAxisymmetric(section: Section): boolean {
   return section.shape !== 'rect';
 }
+
+/**
+ * The section's overall depth in the vertical (striking) direction (m): a rect's blank thickness,
+ * a rod's diameter, a tube's outer diameter. This is what a thickness profile measures and what
+ * cut limits compare with (one convention for every module: modes, design and sessions).
+ */
+export function sectionDepth(section: Section): number {
+  switch (section.shape) {
+    case 'rect':
+      return section.thickness;
+    case 'round':
+      return section.diameter;
+    case 'tube':
+      return section.outerDiameter;
+  }
+}

@@ -11,7 +11,7 @@ export function rectangleTorsionCoefficient(aspect: number): number {
 }
 
 /** Σ_{n odd} 1/n⁵ = (1 − 2⁻⁵)·ζ(5), ζ(5) = 1.0369277551433699… (Abramowitz & Stegun, table 23.3). */
-const oddReciprocalFifthPowers = (31 / 32) * 1.0369277551433699;
+const oddReciprocalFifthPowers = (31 / 32) * 1.03692775514337;
 
 /**
  * Σ_{n odd} tanh(nπa/2)/n⁵, written as Σ 1/n⁵ − Σ (1 − tanh(nπa/2))/n⁵: the second sum decays
@@ -65,7 +65,6 @@ export function rectangleTorsionConstantDerivative(width: number, thickness: num
     return width * thickness * thickness - k * (4 * thickness ** 3 * f + thickness ** 4 * fPrime * (-width / thickness ** 2));
   }
   const a = thickness / width;
-  const f = torsionSeries(a);
   const fPrime = torsionSeriesDerivative(a);
   // Thickness is the long side: d/dL with S = width fixed, da/dL = 1/S.
   return (1 / 3) * width ** 3 - k * width ** 4 * fPrime * (1 / width);

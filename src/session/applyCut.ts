@@ -1,8 +1,7 @@
 import { trimProfile } from '../design/cutLimits.ts';
 import type { BarModel } from '../modes/BarModel.ts';
 import type { CutRegions } from './cutRegions.ts';
-
-const mm = 1e-3;
+import { millimetre as mm } from '../units/units.ts';
 
 /** A cut in region amplitudes: depth (mm) of each region's bump pair, and the total shortening (mm). */
 export interface CutAmounts {

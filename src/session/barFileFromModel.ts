@@ -1,8 +1,7 @@
 import type { BarFile } from '../fileFormats/barFile.ts';
 import type { BarModel } from '../modes/BarModel.ts';
 import { thicknessAt, uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
-
-const mm = 1e-3;
+import { millimetre as mm } from '../units/units.ts';
 
 function roundTo(value: number, step: number): number {
   return Math.round(value / step) * step;

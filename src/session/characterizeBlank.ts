@@ -1,3 +1,4 @@
+import { gram } from '../units/units.ts';
 import { InputError } from '../fileFormats/InputError.ts';
 import type { BarFile } from '../fileFormats/barFile.ts';
 import { barModelFromFile, type BarModel } from '../modes/BarModel.ts';
@@ -101,7 +102,7 @@ interface Inversion {
 
 function invert(bar: BarFile, measuredHz: readonly number[], massGrams: number | undefined, sigmaCents: number): Inversion {
   const base = barModelFromFile(bar);
-  const density = massGrams === undefined ? base.material.density : (massGrams * 1e-3) / blankVolume(base);
+  const density = massGrams === undefined ? base.material.density : (massGrams * gram) / blankVolume(base);
   const model: BarModel = { ...base, material: { ...base.material, density: density } };
   const guessRatio = Math.log(base.material.youngModulus / base.material.shearModulus);
   const sigma = Math.hypot(sigmaCents, measuredHz.length > 1 ? uniformModelAllowanceCents : 0);

@@ -1,7 +1,7 @@
 import type { BarModel } from '../modes/BarModel.ts';
 import { bendingSensitivities } from '../modes/bendingSensitivities.ts';
 import { archDepth } from './archDepth.ts';
-import { choleskyFactor, choleskySolve, symmetricInverse } from './denseLinearAlgebra.ts';
+import { denseCholeskyInPlace, denseCholeskySolveInPlace, symmetricPositiveInverse } from '../eigen/denseCholesky.ts';
 import { centsPerNeper, evaluatePartials, type PartialEvaluation } from './partialModel.ts';
 
 /**
@@ -138,6 +138,23 @@ function modesNeeded(shapes: readonly FitShape[]): number {
   return Math.max(1, ...shapes.map((s) => s.measuredCents.length));
 }
 
+/** Solves the (positive-definite, priors included) normal equations N·x = r by dense Cholesky. */
+function solveNormalEquations(normal: readonly (readonly number[])[], rhs: readonly number[]): number[] {
+  const n = rhs.length;
+  const factor = Float64Array.from(normal.flat());
+  if (!denseCholeskyInPlace(factor, n)) throw new Error('internal: calibration normal matrix is not positive definite');
+  const x = Float64Array.from(rhs);
+  denseCholeskySolveInPlace(factor, n, x);
+  return Array.from(x);
+}
+
+/** The inverse of the normal matrix (the parameters' covariance), as rows. */
+function inverseOfNormal(normal: readonly (readonly number[])[]): number[][] {
+  const n = normal.length;
+  const inverse = symmetricPositiveInverse(Float64Array.from(normal.flat()), n);
+  return Array.from({ length: n }, (_, i) => Array.from(inverse.subarray(i * n, i * n + n)));
+}
+
 /**
  * Fits E, G, optional per-partial corrections and optional removal sizes to the measured
  * partials of one or more shapes of a bar, by Gauss–Newton on the cents residuals with Gaussian
@@ -196,7 +213,7 @@ export function fitModuli(problem: FitProblem): FitResult {
         for (let j = 0; j < size; j++) normal[i]![j]! += a * (prior.coefficients[j]! / prior.sigma);
       }
     }
-    const step = choleskySolve(choleskyFactor(normal), gradient);
+    const step = solveNormalEquations(normal, gradient);
     let scale = 1;
     step.forEach((s, i) => {
       const cap = i < 2 ? maxModulusStep : i >= 2 + corrections ? maxRemovalStep : Infinity;
@@ -213,7 +230,7 @@ export function fitModuli(problem: FitProblem): FitResult {
     p = next;
   }
   if (!converged) states = shapes.map((shape) => evaluateShape(shape, p, corrections, modes));
-  const covariance = symmetricInverse(normal);
+  const covariance = inverseOfNormal(normal);
   const residualCents = shapes.map((shape, k) => shape.measuredCents.map((measured, n) => (measured === null || n >= states[k]!.predicted.length ? null : measured - states[k]!.predicted[n]!)));
   const leverage = shapes.map((shape, k) =>
     shape.measuredCents.map((measured, n) => {

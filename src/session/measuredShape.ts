@@ -1,8 +1,7 @@
 import { mergeStations } from '../design/cutLimits.ts';
 import type { BarModel } from '../modes/BarModel.ts';
 import { thicknessAt, type ThicknessProfile } from '../section/ThicknessProfile.ts';
-
-const mm = 1e-3;
+import { millimetre as mm } from '../units/units.ts';
 
 /**
  * The bar's shape corrected by thicknesses measured with a caliper (`[position_mm,

@@ -14,6 +14,9 @@ import { planCut, type PlannedCut } from './planCut.ts';
 import { centsPerNeper } from './partialModel.ts';
 import { stuckReason } from './stuckReason.ts';
 import { defaultStepPolicy, type StepPolicy } from './stepPolicy.ts';
+import { millimetre as mm } from '../units/units.ts';
+import { sectionDepth } from '../section/Section.ts';
+import { sectionFromFile } from '../modes/BarModel.ts';
 
 /** Options of nextCut. */
 export interface NextCutOptions {
@@ -68,7 +71,6 @@ export interface NextCutResult {
   cautions: string[];
 }
 
-const mm = 1e-3;
 /**
  * A cut must bring some partial that is out of tolerance into it, or closer to its target by at
  * least this share of its tolerance… (a smaller effect is no progress: status `stuck`)
@@ -77,11 +79,9 @@ const minimumProgress = 0.2;
 /** …and by at least this share of how far it is off (a far-off bar needs a real step). */
 const minimumShareOfError = 0.02;
 
+/** The blank's depth (m) the limits compare with: sectionDepth of the bar's section (tubes: outer diameter). */
 function blankThickness(bar: BarFile): number {
-  const section = bar.section;
-  if (section.shape === 'rect') return section.thickness_mm * mm;
-  if (section.shape === 'round') return section.diameter_mm * mm;
-  return section.wall_mm * mm;
+  return sectionDepth(sectionFromFile(bar.section));
 }
 
 function sessionLimits(log: SessionLog, source: string): CutLimits {

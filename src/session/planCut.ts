@@ -7,8 +7,9 @@ import { cutConstraints, type LinearInequality } from './cutConstraints.ts';
 import { cutRegions, type CutRegions } from './cutRegions.ts';
 import { centsPerNeper } from './partialModel.ts';
 import { changeUncertaintyCents, predictShape, type ShapePrediction } from './predictShape.ts';
-import { solveSmallQp } from './solveSmallQp.ts';
+import { solveQuadraticProgram } from '../optimize/quadraticProgram.ts';
 import { defaultStepPolicy, stepAims, type StepAims, type StepPolicy } from './stepPolicy.ts';
+import { millimetre as mm } from '../units/units.ts';
 
 /** What planCut needs: the calibrated model, the bar now on a cutting grid, where it stands. */
 export interface PlanCutInput {
@@ -38,7 +39,6 @@ export interface PlannedCut {
   readonly binding: string[];
 }
 
-const mm = 1e-3;
 /** Most predicted change (cents) of any partial in one linearised step: the model is re-solved before going further. */
 const trustCents = 300;
 const maxIterations = 12;
@@ -134,8 +134,8 @@ function uncertaintyOf(input: PlanCutInput, now: ShapePrediction, candidate: Sha
  * non-negative combination of smooth symmetric regions (cutRegions) between the uncut ends, plus
  * shortening when some partial is flat beyond tolerance and the limits allow it. Method: sequential
  * quadratic programming — at each candidate the calibrated model is re-solved, its exact eigenvalue
- * sensitivities (bendingSensitivities) give the derivatives, and an interior-point QP
- * (solveSmallQp) minimises Σ((error − aim)/tolerance)² plus small Tikhonov terms on the cut's
+ * sensitivities (bendingSensitivities) give the derivatives, and an active-set QP
+ * (solveQuadraticProgram) minimises Σ((error − aim)/tolerance)² plus small Tikhonov terms on the cut's
  * roughness (its second derivative, so the arch stays one smooth curve) and its removed area, subject to the workshop limits (cutConstraints) and the overshoot rule; linearised steps
  * are capped at 300 predicted cents per partial. The result is re-solved exactly and, if the
  * overshoot rule is broken, scaled back.
@@ -207,9 +207,19 @@ export function planCut(input: PlanCutInput): PlannedCut {
         push(matrix[n]!.map((v) => -v), -(ceiling - errors[n]! + offsetAt(matrix[n]!)), 'overshoot-sharp');
       }
     }
-    const result = solveSmallQp({ hessian, linear, rows, bounds });
+    const program = {
+      size: variables,
+      hessian: Float64Array.from(hessian.flat()),
+      gradient: Float64Array.from(linear, (v) => -v),
+      constraintCount: rows.length,
+      constraints: Float64Array.from(rows.flat()),
+      lowerBounds: Float64Array.from(bounds),
+    };
+    // From the current cut (the solver falls back to its interior-point method when the
+    // re-linearised limits no longer hold it).
+    const result = solveQuadraticProgram({ ...program, start: Float64Array.from(x) });
     if (!result.converged) break;
-    let step = result.x.map((v, i) => Math.max(0, v) - x[i]!);
+    let step = Array.from(result.x, (v, i) => Math.max(0, v) - x[i]!);
     const largest = Math.max(...matrix.map((row) => Math.abs(row.reduce((sum, s, i) => sum + s * step[i]!, 0))));
     if (largest > trustCents) step = step.map((s) => (s * trustCents) / largest);
     x = x.map((v, i) => Math.max(0, v + step[i]!));

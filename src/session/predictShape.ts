@@ -1,7 +1,6 @@
 import type { BarModel } from '../modes/BarModel.ts';
 import { archDepth } from './archDepth.ts';
 import type { SessionCalibration } from './calibrateSession.ts';
-import { quadraticForm } from './denseLinearAlgebra.ts';
 import { centsPerNeper, evaluatePartials, type PartialEvaluation } from './partialModel.ts';
 
 /** What the calibrated model says about one shape of the bar. */
@@ -42,4 +41,15 @@ export function changeUncertaintyCents(calibration: SessionCalibration, now: Sha
     const form = calibration.priors.correctionFormSigma * centsPerNeper * Math.abs(deltaDepth);
     return Math.sqrt(Math.max(0, quadraticForm(row, calibration.covariance)) + form * form);
   });
+}
+
+/** v·C·vᵀ for a row vector v and a square matrix C (a variance from a covariance). */
+function quadraticForm(vector: readonly number[], matrix: readonly (readonly number[])[]): number {
+  let sum = 0;
+  for (let i = 0; i < vector.length; i++) {
+    let row = 0;
+    for (let j = 0; j < vector.length; j++) row += matrix[i]![j]! * vector[j]!;
+    sum += vector[i]! * row;
+  }
+  return sum;
 }

@@ -4,6 +4,7 @@ import { applyCut } from './applyCut.ts';
 import type { SessionCalibration } from './calibrateSession.ts';
 import type { PlannedCut } from './planCut.ts';
 import { predictShape } from './predictShape.ts';
+import { millimetre as mm } from '../units/units.ts';
 
 /** What stuckReason looks at. */
 export interface StuckInput {
@@ -14,8 +15,6 @@ export interface StuckInput {
   readonly limits: CutLimits;
   readonly plan: PlannedCut;
 }
-
-const mm = 1e-3;
 
 function signed(value: number): string {
   return `${value >= 0 ? '+' : ''}${value.toFixed(1)}`;

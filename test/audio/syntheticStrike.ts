@@ -28,7 +28,7 @@ export interface StrikeScene {
 }
 
 /** A small deterministic pseudo-random generator (mulberry32), uniform on [0, 1). */
-export function randomSource(seed: number): () => number {
+function randomSource(seed: number): () => number {
   let state = seed >>> 0;
   return () => {
     state = (state + 0x6d2b79f5) >>> 0;
@@ -40,7 +40,7 @@ export function randomSource(seed: number): () => number {
 }
 
 /** Standard normal deviates from a uniform source (Box–Muller). */
-export function gaussianSource(uniform: () => number): () => number {
+function gaussianSource(uniform: () => number): () => number {
   return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
 }
 
@@ -63,22 +63,22 @@ export function synthesizeStrike(scene: StrikeScene): Float64Array {
     const decayPerSample = Math.exp(-1 / (timeConstant * sampleRate));
     let envelope = partial.amplitude;
     for (let i = strikeIndex; i < length; i++) {
-      out[i] += envelope * Math.sin(omega * (i - strikeIndex) + phase);
+      out[i]! += envelope * Math.sin(omega * (i - strikeIndex) + phase);
       envelope *= decayPerSample;
     }
   }
   if (scene.strikeNoise) {
     const { amplitude, timeConstantS } = scene.strikeNoise;
     const end = Math.min(length, strikeIndex + Math.round(12 * timeConstantS * sampleRate));
-    for (let i = strikeIndex; i < end; i++) out[i] += amplitude * Math.exp(-(i - strikeIndex) / (timeConstantS * sampleRate)) * (2 * uniform() - 1);
+    for (let i = strikeIndex; i < end; i++) out[i]! += amplitude * Math.exp(-(i - strikeIndex) / (timeConstantS * sampleRate)) * (2 * uniform() - 1);
   }
   if (scene.hum) {
     scene.hum.amplitudes.forEach((amplitude, index) => {
       const omega = (2 * Math.PI * scene.hum!.hz * (index + 1)) / sampleRate;
       const phase = 2 * Math.PI * uniform();
-      for (let i = 0; i < length; i++) out[i] += amplitude * Math.sin(omega * i + phase);
+      for (let i = 0; i < length; i++) out[i]! += amplitude * Math.sin(omega * i + phase);
     });
   }
-  if (scene.noiseRms) for (let i = 0; i < length; i++) out[i] += scene.noiseRms * gaussian();
+  if (scene.noiseRms) for (let i = 0; i < length; i++) out[i]! += scene.noiseRms * gaussian();
   return out;
 }

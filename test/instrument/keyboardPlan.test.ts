@@ -2,7 +2,6 @@ import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkProfile, resolveCutLimits } from '../../src/design/cutLimits.ts';
 import type { StoredKeyboardBar } from '../../src/instrument/designKeyboardBar.ts';
-import type { KeyboardBarJob } from '../../src/instrument/keyboardBarJobs.ts';
 import { runKeyboardTask, type KeyboardTask, type KeyboardTaskResult } from '../../src/instrument/keyboardTask.ts';
 import { keyboardCutListColumns, keyboardCutListCsv } from '../../src/instrument/keyboardCutListCsv.ts';
 import { keyboardBarTemplates, keyboardStationTables } from '../../src/instrument/keyboardBarTemplates.ts';

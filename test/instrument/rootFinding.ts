@@ -4,7 +4,7 @@
  */
 
 /** Bisection of f on [a, b] where f(a)·f(b) < 0, to |b − a| ≤ 1e-13·|b| (or 200 halvings). */
-export function bisect(f: (x: number) => number, a: number, b: number): number {
+function bisect(f: (x: number) => number, a: number, b: number): number {
   let fa = f(a);
   for (let i = 0; i < 200 && b - a > 1e-13 * Math.abs(b); i++) {
     const m = 0.5 * (a + b);

@@ -23,7 +23,7 @@ export function eulerBernoulliFreeFreeRoots(count: number): number[] {
  * with β = β_n L (Blevins 1979, table 8-1). Direct evaluation: fine for the first modes (the
  * cancellation of cosh and σ sinh costs about e^{βξ}·ε, ~1e-12 at β = 11).
  */
-export function eulerBernoulliFreeFreeShape(rootBetaL: number, position: number): number {
+function eulerBernoulliFreeFreeShape(rootBetaL: number, position: number): number {
   const beta = rootBetaL;
   const sigma = (Math.cosh(beta) - Math.cos(beta)) / (Math.sinh(beta) - Math.sin(beta));
   const z = beta * position;

@@ -16,7 +16,7 @@ export interface UniformBeam {
  * with b² = ρA L⁴ ω²/(EI), r² = I/(A L²), s² = EI/(κ A G L²),
  * α, β = (1/√2) {∓(r² + s²) + [(r² − s²)² + 4/b²]^½}^½. Valid below the cutoff b r s < 1.
  */
-export function huangFreeFreeResidual(b: number, r2: number, s2: number): number {
+function huangFreeFreeResidual(b: number, r2: number, s2: number): number {
   const root = Math.sqrt((r2 - s2) ** 2 + 4 / (b * b));
   const alpha = Math.SQRT1_2 * Math.sqrt(-(r2 + s2) + root);
   const beta = Math.SQRT1_2 * Math.sqrt(r2 + s2 + root);

@@ -16,7 +16,7 @@ export interface RectangularBar {
  * Thickness (m) of the bar at x by linear interpolation of its profile (written here, apart from
  * the solver's own profile code, so the reference checks do not share it).
  */
-export function referenceThickness(bar: RectangularBar, x: number): number {
+function referenceThickness(bar: RectangularBar, x: number): number {
   const stations = bar.profile;
   for (let k = 1; k < stations.length; k++) {
     const [x0, t0] = stations[k - 1]!;

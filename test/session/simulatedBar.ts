@@ -5,7 +5,6 @@ import { bendingLaw, type SectionLaw } from '../../src/fe/sectionLaw.ts';
 import { buildMesh } from '../../src/fe/buildMesh.ts';
 import { solveBendingLine } from '../../src/modes/solveBending.ts';
 import type { BarModel } from '../../src/modes/BarModel.ts';
-import { thicknessAt, type ThicknessProfile } from '../../src/section/ThicknessProfile.ts';
 
 /** How the simulated bar's physics departs from the classical Timoshenko model. */
 export interface RealPhysics {
@@ -52,11 +51,6 @@ export function realPartials(model: BarModel, physics: RealPhysics = defaultReal
   const nodes = buildMesh(model.profile, physics.elements);
   const solution = solveBendingLine({ length: model.length, profile: model.profile, law }, nodes, 'timoshenko', modes);
   return Array.from(solution.frequencies);
-}
-
-/** Removal of a cut (m) at x: recorded-before minus planned-after, both SI profiles, after shifted by trim. */
-export function removalAt(before: ThicknessProfile, after: ThicknessProfile, trimLeft: number, x: number): number {
-  return thicknessAt(before, x) - thicknessAt(after, x - trimLeft);
 }
 
 /** Seeded uniform pseudo-random numbers in [0, 1) (mulberry32), so every test run is the same. */

@@ -74,7 +74,7 @@ export function runSimulatedSession(setup: SimulatedSessionSetup): SimulatedSess
   let thinnest = Math.min(...real.profile.thicknesses);
   let largestAdded = -Infinity;
   let cuts = 0;
-  let status: NextCutResult['status'] = 'cut';
+  let status: NextCutResult['status'];
   for (;;) {
     const result = nextCut(session);
     results.push(result);

@@ -42,7 +42,7 @@ function materialOf(bar: RectangularBar) {
 }
 
 /** The blank thickness of a test bar: its thickest station. */
-export function blankThickness(bar: RectangularBar): number {
+function blankThickness(bar: RectangularBar): number {
   return Math.max(...bar.profile.map(([, t]) => t));
 }
 
@@ -69,11 +69,6 @@ export function barFileOf(bar: RectangularBar, label = 'test bar') {
     ...(uniform ? {} : { profile_mm: bar.profile.map(([x, t]) => [x * 1000, t * 1000] as [number, number]) }),
     material: { E_GPa: bar.youngModulus / 1e9, G_GPa: bar.shearModulus / 1e9, density_kg_m3: bar.density, shear_coefficient: bar.shearCoefficient },
   };
-}
-
-/** Relative difference a/b − 1. */
-export function relativeError(value: number, reference: number): number {
-  return value / reference - 1;
 }
 
 /** Pitch difference in cents, 1200·log2(value/reference). */

@@ -1,12 +1,13 @@
-// Messages between the page and the partial-finding worker.
+// The partial-finding worker's one job (partialWorker.ts), in the workbench's job protocol
+// (jobProtocol.ts): a WAV file's bytes or captured samples in, the tap report out.
 import type { ExpectedModes, TapReport } from '../../src/index.ts';
 
-/** What the worker is asked to analyse. */
+/** What the worker is asked to analyse (its buffer is transferred to the worker). */
 export type PartialRequest =
   | { kind: 'wav'; bytes: ArrayBuffer; name: string; maxPartials?: number; expected?: ExpectedModes }
   | { kind: 'samples'; samples: Float32Array; sampleRate: number; maxPartials?: number; expected?: ExpectedModes };
 
-/** The worker's answer to request `id`. */
-export type PartialResponse =
-  | { id: number; ok: true; report: TapReport; elapsedMs: number }
-  | { id: number; ok: false; inputError: boolean; message: string };
+/** The partial-finding job catalog. */
+export type PartialJobs = {
+  partials: { payload: PartialRequest; result: TapReport };
+};

@@ -4,9 +4,10 @@
 // written beside the field they concern.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, state } from 'lit/decorators.js';
-import { materialPresets } from '../../src/index.ts';
-import { LatestSolveController } from '../controllers/LatestSolveController.ts';
-import { quickSolver } from '../worker/SolverClient.ts';
+import { materialPresets, stableHash } from '../../src/index.ts';
+import { TaskController, workerJob } from '../controllers/TaskController.ts';
+import { solver } from '../worker/SolverClient.ts';
+import type { SolverJobs } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { chimeStockChoices } from '../chimeStockChoices.ts';
 import { downloadText, fileStem } from '../download.ts';
@@ -135,7 +136,8 @@ export class BwChimeView extends LitElement {
   ];
 
   @state() private form: ChimeForm = { ...initialForm };
-  private readonly solve = new LatestSolveController<'chimeSet'>(this, quickSolver);
+  /** The set as the form describes it, recomputed as it changes (the newest form follows the one being computed). */
+  private readonly solve = new TaskController<SolverJobs['chimeSet']['result']>(this, { policy: 'latest' });
 
   override connectedCallback(): void {
     super.connectedCallback();
@@ -163,7 +165,8 @@ export class BwChimeView extends LitElement {
   }
 
   private recompute(): void {
-    this.solve.give({ kind: 'chimeSet', file: this.fileValue() });
+    const file = this.fileValue();
+    this.solve.run({ subject: 'chime-set', key: stableHash(file) }, workerJob(solver, 'chimeSet', { file }));
   }
 
   private setField<K extends keyof ChimeForm>(key: K, value: ChimeForm[K]): void {
@@ -181,7 +184,7 @@ export class BwChimeView extends LitElement {
 
   /** The library's rule for a form field, when the newest input broke one. */
   private ruleFor(key: keyof ChimeForm | 'other'): string {
-    const problem = this.solve.state.problem;
+    const problem = this.solve.state('chime-set').problem;
     if (!problem || problem.status !== 'input-error') return '';
     return formFieldOf(problem.field) === key ? `${labels[key as keyof ChimeForm] ?? problem.field}: ${problem.rule}` : '';
   }
@@ -192,14 +195,14 @@ export class BwChimeView extends LitElement {
   }
 
   private download(): void {
-    const value = this.solve.state.value;
+    const value = this.solve.state('chime-set').value;
     if (!value) return;
     downloadText(`${fileStem(value.plan.name, 'chimes')}-chime-cut-list.csv`, value.csv);
   }
 
   protected override render() {
     const f = this.form;
-    const state = this.solve.state;
+    const state = this.solve.state('chime-set');
     const problem = state.problem;
     const stale = problem !== null;
     const metals = materialPresets.filter((preset) => preset.kind === 'metal');
@@ -258,7 +261,7 @@ export class BwChimeView extends LitElement {
         <div class="actions">
           <button class="primary" ?disabled=${!state.value || stale} @click=${() => this.download()} data-testid="chime-download">Download the cut list (CSV)</button>
           <button ?disabled=${!state.value || stale} @click=${() => window.print()}>Print the cut list</button>
-          <span class="muted" role="status">${state.busy ? 'Computing…' : stale ? 'Showing the last set that could be computed: fix the field marked above.' : ''}</span>
+          <span class="muted" role="status">${state.running ? 'Computing…' : stale ? 'Showing the last set that could be computed: fix the field marked above.' : ''}</span>
         </div>
       </section>
       <section class="panel" aria-label="Chime set results" data-stale=${stale ? 'true' : 'false'}>

@@ -4,12 +4,13 @@
 // progress and cancel).
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { barTargetHz, checkA4, parseNote, comparePartials, lastMeasuredHz, parseRatioText, parseToleranceText, registerOf, updateInstrument, updateRegister, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
-import { longSolver } from '../worker/SolverClient.ts';
-import type { SolverResults } from '../worker/protocol.ts';
+import { barTargetHz, checkA4, parseNote, comparePartials, lastMeasuredHz, parseRatioText, parseToleranceText, registerOf, stableHash, updateInstrument, updateRegister, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
+import { TaskController, workerJob } from '../controllers/TaskController.ts';
+import { solver } from '../worker/SolverClient.ts';
+import type { AnalyzeManyEntry } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
-import { formatCents, formatMm, formatRatios, formatWhen, partialName, stateName, verdictClass, verdictMark } from '../format.ts';
+import { formatCents, formatMm, formatWhen, partialName, stateName, verdictClass, verdictMark } from '../format.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
 import './bw-number-field.ts';
 import './bw-keyboard-plan.ts';
@@ -85,12 +86,11 @@ export class BwKeyboardView extends LitElement {
 
   @property({ attribute: false }) project: ProjectFile | null = null;
 
-  @state() private predictions = new Map<string, SolverResults['analyzeMany'][number]>();
-  @state() private progress: { done: number; total: number } | null = null;
-  @state() private predictionNote = '';
+  @state() private predictions = new Map<string, AnalyzeManyEntry>();
   @state() private registerErrors: Record<string, string> = {};
   @state() private a4Error = '';
-  private running: AbortController | null = null;
+  /** Predictions for every bar's present shape (new shapes restart it; kept until new ones arrive). */
+  private readonly prediction = new TaskController<AnalyzeManyEntry[]>(this, { onResult: (entries) => void (this.predictions = new Map(entries.map((entry) => [entry.id, entry]))) });
   private lastKey = '';
 
   protected override willUpdate(changed: Map<string, unknown>): void {
@@ -103,30 +103,27 @@ export class BwKeyboardView extends LitElement {
     }
   }
 
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.running?.abort();
-  }
-
-  private async predict(): Promise<void> {
+  private predict(): void {
     const project = this.project;
     if (!project) return;
-    this.running?.abort();
-    const controller = new AbortController();
-    this.running = controller;
-    this.progress = { done: 0, total: project.bars.length };
-    this.predictionNote = '';
-    const outcome = await longSolver.request(
-      { kind: 'analyzeMany', bars: project.bars.map((bar) => ({ id: bar.id, bar: bar.current })), modes: 3 },
-      { signal: controller.signal, onProgress: (done, total) => (this.progress = { done, total }) },
-    );
-    if (this.running !== controller) return;
-    this.running = null;
-    this.progress = null;
-    if (outcome.status === 'ok') this.predictions = new Map(outcome.value.map((entry) => [entry.id, entry]));
-    else if (outcome.status === 'cancelled') this.predictionNote = 'Predictions cancelled; measured values are still shown.';
-    else if (outcome.status === 'unavailable') this.predictionNote = `${outcome.what} is not available yet.`;
-    else this.predictionNote = outcome.status === 'input-error' ? outcome.message : outcome.message;
+    const payload = { bars: project.bars.map((bar) => ({ id: bar.id, bar: bar.current })), modes: 3 };
+    this.prediction.run({ subject: 'bars', key: stableHash(payload) }, workerJob(solver, 'analyzeMany', payload));
+  }
+
+  /** What the bar list says about its predictions when none are running. */
+  private predictionNote(): string {
+    const problem = this.prediction.state('bars').problem;
+    if (!problem) return '';
+    switch (problem.status) {
+      case 'cancelled':
+        return 'Predictions cancelled; measured values are still shown.';
+      case 'unavailable':
+        return `${problem.what} is not available yet.`;
+      case 'stale':
+        return '';
+      default:
+        return problem.message;
+    }
   }
 
   private editRatios(register: Register, text: string): void {
@@ -157,7 +154,7 @@ export class BwKeyboardView extends LitElement {
     const measured = lastMeasuredHz(bar);
     const prediction = this.predictions.get(bar.id);
     const hz = measured ?? prediction?.analysis?.bending.map((mode) => mode.hz) ?? null;
-    if (!hz) return html`<span class="muted">${prediction?.error ?? (this.progress ? 'predicting…' : '–')}</span>`;
+    if (!hz) return html`<span class="muted">${prediction?.error ?? (this.prediction.state('bars').running ? 'predicting…' : '–')}</span>`;
     const standings = comparePartials(hz, targets, register.tolerance_cents);
     const when = measured ? `heard ${formatWhen(bar.session.steps[bar.session.steps.length - 1]?.recorded_at)}` : 'predicted';
     return html`${standings.map(
@@ -193,6 +190,8 @@ export class BwKeyboardView extends LitElement {
     if (!project) return nothing;
     const instrument = project.instrument;
     const material = instrument.material;
+    const predicting = this.prediction.state('bars');
+    const progress = predicting.progress ?? { done: 0, total: project.bars.length };
     return html`<div class="grid">
       <section class="panel" aria-labelledby="instrument-heading">
         <h2 id="instrument-heading">${instrument.name}</h2>
@@ -211,7 +210,7 @@ export class BwKeyboardView extends LitElement {
                   <th scope="row">${register.label}</th>
                   <td>
                     <label class="visually-hidden" for=${`ratios-${register.id}`}>Target ratios of ${register.label}</label>
-                    <input id=${`ratios-${register.id}`} .value=${formatRatios(register.ratios)} @change=${(event: Event) => this.editRatios(register, (event.target as HTMLInputElement).value)} aria-invalid=${this.registerErrors[`${register.id}.ratios`] ? 'true' : 'false'} />
+                    <input id=${`ratios-${register.id}`} .value=${register.ratios.join(' : ')} @change=${(event: Event) => this.editRatios(register, (event.target as HTMLInputElement).value)} aria-invalid=${this.registerErrors[`${register.id}.ratios`] ? 'true' : 'false'} />
                     ${this.registerErrors[`${register.id}.ratios`] ? html`<span class="field-error" role="alert">✕ ${this.registerErrors[`${register.id}.ratios`]}</span>` : nothing}
                   </td>
                   <td>
@@ -231,9 +230,9 @@ export class BwKeyboardView extends LitElement {
         <div class="row" style="justify-content: space-between">
           <h2 id="bars-heading">Bars</h2>
           <div class="row" aria-live="polite">
-            ${this.progress
-              ? html`<progress max=${this.progress.total} value=${this.progress.done} aria-label="Predicting partials"></progress><span>Predicting ${this.progress.done} of ${this.progress.total}</span><button @click=${() => this.running?.abort()}>Cancel</button>`
-              : html`<span class="muted">${this.predictionNote}</span>`}
+            ${predicting.running
+              ? html`<progress max=${progress.total} value=${progress.done} aria-label="Predicting partials"></progress><span>Predicting ${progress.done} of ${progress.total}</span><button @click=${() => this.prediction.cancel('bars')}>Cancel</button>`
+              : html`<span class="muted">${this.predictionNote()}</span>`}
           </div>
         </div>
         <p class="muted">${project.bars.length} bars set up. Cents from target per partial (fundamental first): ▲ sharp · ▼ flat · ● in tune.</p>

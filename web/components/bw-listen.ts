@@ -5,6 +5,8 @@ import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { labelPartials, matchTargets, sharpOrFlat, type ExpectedModes, type TapPartial, type TapReport } from '../../src/index.ts';
 import { PartialClient } from '../audio/PartialClient.ts';
+import type { PartialRequest } from '../audio/partialProtocol.ts';
+import { TaskController, type TaskBinding, type TaskProblem } from '../controllers/TaskController.ts';
 import { ReferenceTones } from '../audio/ReferenceTones.ts';
 import { CaptureError, StrikeCapture } from '../audio/StrikeCapture.ts';
 import type { StrikeDetectorState } from '../audio/strikeDetector.ts';
@@ -177,6 +179,9 @@ export class BwListen extends LitElement {
 
   private readonly capture = new StrikeCapture();
   private readonly client = new PartialClient();
+  /** The newest strike or file is analysed; a new one replaces an analysis still running. */
+  private readonly analysis = new TaskController<TapReport>(this, { onResult: (report, binding) => this.onReport(report, binding), onProblem: (problem) => this.onProblem(problem) });
+  private readings = 0;
   private readonly tones = new ReferenceTones();
 
   override disconnectedCallback(): void {
@@ -210,7 +215,7 @@ export class BwListen extends LitElement {
         },
         onStrike: (strike) => {
           this.status = 'analysing';
-          void this.analyse({ kind: 'samples', samples: strike.samples, sampleRate: strike.sampleRate }, 'microphone');
+          this.analyse({ kind: 'samples', samples: strike.samples, sampleRate: strike.sampleRate }, 'microphone');
         },
       });
     } catch (error) {
@@ -221,22 +226,29 @@ export class BwListen extends LitElement {
     }
   }
 
-  private async analyse(request: Parameters<PartialClient['analyse']>[0], source: 'microphone' | 'file'): Promise<void> {
-    const outcome = await this.client.analyse({ ...request, maxPartials: this.maxPartials, expected: this.expected ?? undefined });
-    if (!outcome.ok) {
-      this.status = this.capture.active ? 'waiting' : 'problem';
-      this.message = outcome.message;
-      return;
-    }
-    this.report = outcome.report;
+  /** Analyses a capture or a file in the worker (the key records where it came from). */
+  private analyse(request: PartialRequest, source: 'microphone' | 'file'): void {
+    this.readings += 1;
+    const full: PartialRequest = { ...request, maxPartials: this.maxPartials, ...(this.expected ? { expected: this.expected } : {}) };
+    this.analysis.run({ subject: 'reading', key: `${source}:${this.readings}` }, ({ signal }) => this.client.analyse(full, { signal }));
+  }
+
+  private onReport(report: TapReport, binding: TaskBinding): void {
+    const source = binding.key.startsWith('file:') ? 'file' : 'microphone';
+    this.report = report;
     this.source = source;
     this.message = '';
     this.status = this.capture.active ? 'waiting' : 'idle';
     const detail: PartialsMeasuredDetail = {
-      partials: outcome.report.partials.map(({ hz, level_db, decay_s }) => ({ hz, level_db, decay_s })),
+      partials: report.partials.map(({ hz, level_db, decay_s }) => ({ hz, level_db, decay_s })),
       source,
     };
     this.dispatchEvent(new CustomEvent<PartialsMeasuredDetail>('partials-measured', { detail, bubbles: true, composed: true }));
+  }
+
+  private onProblem(problem: TaskProblem): void {
+    this.status = this.capture.active ? 'waiting' : 'problem';
+    this.message = problem.status === 'unavailable' ? `${problem.what} is not available yet.` : 'message' in problem ? problem.message : 'The analysis was stopped.';
   }
 
   private async takeFile(file: File | undefined): Promise<void> {
@@ -248,7 +260,7 @@ export class BwListen extends LitElement {
     }
     this.status = 'analysing';
     this.message = '';
-    await this.analyse({ kind: 'wav', bytes: await file.arrayBuffer(), name: file.name }, 'file');
+    this.analyse({ kind: 'wav', bytes: await file.arrayBuffer(), name: file.name }, 'file');
   }
 
   private onDrop(event: DragEvent): void {

@@ -1,5 +1,7 @@
 // Typing the partials heard: one field per partial, Enter moves to the next and, on the last,
 // records the round. Filled in when listening hears the bar. Fires `round-submit`.
+// A heard frequency is kept as the number it is: the field shows it rounded, and the round
+// records the full value unless the maker types over it (then the typed number counts).
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { sharedStyles } from '../styles/sharedStyles.ts';
@@ -60,12 +62,16 @@ export class BwPartialEntry extends LitElement {
   @property() filledFrom: 'microphone' | 'file' = 'microphone';
 
   @state() private texts: string[] = [];
+  /** Heard frequencies behind untouched fields, Hz (full precision; null where typed or empty). */
+  @state() private heard: (number | null)[] = [];
   @state() private errors: string[] = [];
   @state() private source: RoundSubmitDetail['source'] = 'typed';
 
   protected override willUpdate(changed: Map<string, unknown>): void {
     if (changed.has('filled') && this.filled) {
-      this.texts = Array.from({ length: this.count }, (_, index) => (this.filled![index] ? formatHz(this.filled![index]) : ''));
+      const filled = this.filled;
+      this.heard = Array.from({ length: this.count }, (_, index) => filled[index] ?? null);
+      this.texts = this.heard.map((hz) => (hz === null ? '' : formatHz(hz)));
       this.errors = [];
       this.source = this.filledFrom;
     }
@@ -77,15 +83,16 @@ export class BwPartialEntry extends LitElement {
     let ended = false;
     for (let index = 0; index < this.count; index += 1) {
       const text = (this.texts[index] ?? '').trim().replace(',', '.');
+      const heard = this.heard[index] ?? null;
       if (text === '') {
         if (index === 0) errors[index] = 'Enter at least the fundamental (Hz)';
         ended = true;
         continue;
       }
-      const value = Number(text);
+      const value = heard ?? Number(text);
       if (ended) errors[index] = `Fill in ${partialName(index - 1).toLowerCase()} first, or clear this one`;
       else if (!Number.isFinite(value) || value <= 0) errors[index] = 'Must be a frequency in Hz greater than 0';
-      else if (index > 0 && value <= values[index - 1]!) errors[index] = `Must be higher than ${partialName(index - 1).toLowerCase()} (${values[index - 1]} Hz)`;
+      else if (index > 0 && value <= values[index - 1]!) errors[index] = `Must be higher than ${partialName(index - 1).toLowerCase()} (${formatHz(values[index - 1])} Hz)`;
       else values.push(value);
     }
     this.errors = errors;
@@ -97,12 +104,14 @@ export class BwPartialEntry extends LitElement {
     if (!values) return;
     this.dispatchEvent(new CustomEvent<RoundSubmitDetail>('round-submit', { detail: { hz: values, source: this.source }, bubbles: true, composed: true }));
     this.texts = [];
+    this.heard = [];
     this.source = 'typed';
   }
 
   /** Clears the fields (after a round was recorded elsewhere). */
   clear(): void {
     this.texts = [];
+    this.heard = [];
     this.errors = [];
   }
 
@@ -132,6 +141,9 @@ export class BwPartialEntry extends LitElement {
                 const texts = [...this.texts];
                 texts[index] = (event.target as HTMLInputElement).value;
                 this.texts = texts;
+                const heard = [...this.heard];
+                heard[index] = null;
+                this.heard = heard;
                 this.source = 'typed';
               }}
               @keydown=${(event: KeyboardEvent) => this.onKey(event, index)}

@@ -4,9 +4,10 @@
 // undercut planner. Engineering figures sit behind a disclosure.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { adoptDesign, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, withStations, type BarFile, type BarState, type CutEffectMap, type ModeResult, type ProjectFile } from '../../src/index.ts';
-import { LatestSolveController, type LatestSolveState } from '../controllers/LatestSolveController.ts';
-import { longSolver, quickSolver, type SolverOutcome } from '../worker/SolverClient.ts';
+import { adoptDesign, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, stableHash, withStations, type BarFile, type BarState, type CutEffectMap, type DesignResult, type ModeResult, type ProjectBar, type ProjectFile } from '../../src/index.ts';
+import { TaskController, workerJob, type TaskBinding, type TaskProblem } from '../controllers/TaskController.ts';
+import { solver } from '../worker/SolverClient.ts';
+import type { AnalyzeResult, DesignPayload } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { sendEdit } from '../events.ts';
 import { formatCents, formatHz, formatMm, formatNumber, formatRatios, partialName, stateName } from '../format.ts';
@@ -87,6 +88,11 @@ export class BwShapeView extends LitElement {
         width: 12rem;
         height: 1rem;
       }
+      ul.others {
+        list-style: none;
+        padding: 0;
+        margin: 0.6rem 0 0;
+      }
     `,
   ];
 
@@ -96,16 +102,25 @@ export class BwShapeView extends LitElement {
   @state() private preview: BarFile | null = null;
   @state() private shapeError = '';
   @state() private lastUpdateMs: number | null = null;
-  @state() private planning: AbortController | null = null;
-  @state() private planProgress = '';
-  @state() private planProblem: Exclude<SolverOutcome<'design'>, { status: 'ok' }> | null = null;
   @state() private spread = 30;
   /** Bending modes of the last result that carried mode shapes (kept while dragging). */
   @state() private shapedModes: ModeResult[] = [];
   /** The last where-to-cut map (kept while dragging; refreshed when the drag ends). */
   @state() private cutMap: CutEffectMap | null = null;
 
-  private readonly analysis = new LatestSolveController<'analyze'>(this, quickSolver, (state, givenAt) => this.onAnalysis(state, givenAt));
+  /** The partials of the shape on screen, per bar; while dragging only the newest shape follows the one being solved. */
+  private readonly analysis = new TaskController<AnalyzeResult>(this, { policy: 'latest', onResult: (value, binding, givenAt) => this.onAnalysis(value, binding, givenAt) });
+  /**
+   * Undercut plans, per bar: each stored on the bar that asked for it (whichever bar is on screen
+   * when it finishes), and dropped if that bar's blank or targets changed meanwhile.
+   */
+  private readonly design = new TaskController<DesignResult>(this, {
+    isCurrent: (binding) => this.designKey(binding.subject) === binding.key,
+    onResult: (result, binding) => {
+      const outcome = sendEdit(this, (project) => setDesign(project, binding.subject, result, new Date().toISOString()));
+      return outcome.ok ? undefined : outcome.error.message;
+    },
+  });
   private lastGiven = '';
 
   private get bar() {
@@ -119,22 +134,52 @@ export class BwShapeView extends LitElement {
 
   protected override willUpdate(changed: Map<string, unknown>): void {
     if (changed.has('barId')) {
+      const previous = changed.get('barId');
+      if (typeof previous === 'string' && previous) this.analysis.forget(previous);
       this.preview = null;
       this.shapedModes = [];
       this.cutMap = null;
-      this.analysis.reset();
       this.lastGiven = '';
       this.shapeError = '';
     }
-    if (changed.has('project') && !this.planning) this.preview = null;
+    // A drag preview ends when this bar's shape changes (a commit, an undo, another tab), not
+    // when something else in the project does (a plan landing on another bar).
+    if (changed.has('project') && this.preview) {
+      const before = (changed.get('project') as ProjectFile | null | undefined)?.bars.find((bar) => bar.id === this.barId)?.current;
+      if (JSON.stringify(before) !== JSON.stringify(this.bar?.current)) this.preview = null;
+    }
     const shape = this.shape;
     if (shape) {
       const key = JSON.stringify(shape);
       if (key !== this.lastGiven) {
         this.lastGiven = key;
-        this.analysis.give({ kind: 'analyze', bar: shape, modes: this.modeCount(), withShapes: true, withSensitivities: true });
+        this.analyse(shape, key, true);
       }
     }
+  }
+
+  /** Asks for the partials of `shape` on the bar shown (with shapes and the where-to-cut map unless dragging). */
+  private analyse(shape: BarFile, key: string, full: boolean, givenAt?: number): void {
+    const payload = { bar: shape, modes: this.modeCount(), withShapes: full, withSensitivities: full };
+    this.analysis.run({ subject: this.barId, key: `${full ? 'full' : 'partials'}:${key}` }, workerJob(solver, 'analyze', payload), givenAt);
+  }
+
+  /** The newest analysis of the bar shown. */
+  private get analysed() {
+    return this.analysis.state(this.barId);
+  }
+
+  /** What a plan for `bar` asks the designer: its present shape, note, targets and thinnest allowed. */
+  private designPayload(project: ProjectFile, bar: ProjectBar): DesignPayload {
+    const register = registerOf(project, bar);
+    return { bar: bar.current, target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } };
+  }
+
+  /** Fingerprint of what a plan for bar `barId` would ask now (null when the bar is gone). */
+  private designKey(barId: string): string | null {
+    const project = this.project;
+    const bar = project?.bars.find((candidate) => candidate.id === barId);
+    return project && bar ? stableHash(this.designPayload(project, bar)) : null;
   }
 
   private modeCount(): number {
@@ -147,10 +192,10 @@ export class BwShapeView extends LitElement {
    * Records how long a shape took to reach the screen as partials: `bw:shape-to-partials` when
    * the readouts have re-rendered, `bw:shape-to-frame` at the next animation frame.
    */
-  private onAnalysis(state: LatestSolveState<'analyze'>, givenAt: number): void {
-    if (state.value === null) return;
-    if (state.value.analysis.bending.some((mode) => mode.shape)) this.shapedModes = state.value.analysis.bending;
-    if (state.value.sensitivities) this.cutMap = state.value.sensitivities;
+  private onAnalysis(value: AnalyzeResult, binding: TaskBinding, givenAt: number): void {
+    if (binding.subject !== this.barId) return;
+    if (value.analysis.bending.some((mode) => mode.shape)) this.shapedModes = value.analysis.bending;
+    if (value.sensitivities) this.cutMap = value.sensitivities;
     void this.updateComplete
       .then(() => Promise.all([...this.renderRoot.querySelectorAll('bw-cents-readout')].map((readout) => readout.updateComplete)))
       .then(() => {
@@ -165,7 +210,7 @@ export class BwShapeView extends LitElement {
   private onPreview(event: CustomEvent<ProfileChangeDetail>): void {
     this.preview = event.detail.bar;
     this.lastGiven = JSON.stringify(event.detail.bar);
-    this.analysis.give({ kind: 'analyze', bar: event.detail.bar, modes: this.modeCount(), withShapes: false, withSensitivities: false }, event.detail.at);
+    this.analyse(event.detail.bar, this.lastGiven, false, event.detail.at);
   }
 
   private onCommit(event: CustomEvent<ProfileChangeDetail>): void {
@@ -186,25 +231,13 @@ export class BwShapeView extends LitElement {
     sendEdit(this, (project) => setBarState(project, this.barId, value, new Date().toISOString()));
   }
 
-  private async plan(): Promise<void> {
+  /** Plans the undercut of the bar shown; the plan is stored on this bar, whatever is shown when it is done. */
+  private plan(): void {
     const bar = this.bar;
     const project = this.project;
     if (!bar || !project) return;
-    const register = registerOf(project, bar);
-    const controller = new AbortController();
-    this.planning = controller;
-    this.planProblem = null;
-    this.planProgress = 'Planning…';
-    const outcome = await longSolver.request(
-      { kind: 'design', bar: bar.current, target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } },
-      { signal: controller.signal, onProgress: (done, total) => (this.planProgress = `Planning… ${done} of at most ${total} solver runs`) },
-    );
-    this.planning = null;
-    this.planProgress = '';
-    if (outcome.status === 'ok') {
-      const result = outcome.value;
-      sendEdit(this, (p) => setDesign(p, this.barId, result, new Date().toISOString()));
-    } else this.planProblem = outcome;
+    const payload = this.designPayload(project, bar);
+    this.design.run({ subject: bar.id, key: stableHash(payload) }, workerJob(solver, 'design', payload));
   }
 
   private adoptPlan(): void {
@@ -217,7 +250,7 @@ export class BwShapeView extends LitElement {
     const bar = this.bar!;
     const register = registerOf(project, bar);
     const targets = barTargetHz(project, bar);
-    const { value, problem, busy } = this.analysis.state;
+    const { value, problem, running: busy } = this.analysed;
     if (!value && problem) return this.renderProblem(problem, 'Predicted partials');
     const predicted = value?.analysis.bending.map((mode) => mode.hz) ?? [];
     const standings = comparePartials(predicted, targets, register.tolerance_cents);
@@ -248,8 +281,10 @@ export class BwShapeView extends LitElement {
     </section>`;
   }
 
-  private problemText(problem: Exclude<SolverOutcome<'analyze'>, { status: 'ok' }> | Exclude<SolverOutcome<'design'>, { status: 'ok' }>): string {
+  private problemText(problem: TaskProblem): string {
     switch (problem.status) {
+      case 'stale':
+        return 'The bar changed while this was worked out; the result was not kept.';
       case 'input-error':
         return `${problem.field}: ${problem.rule}`;
       case 'unavailable':
@@ -261,12 +296,12 @@ export class BwShapeView extends LitElement {
     }
   }
 
-  private renderProblem(problem: Exclude<SolverOutcome<'analyze'>, { status: 'ok' }>, title: string) {
+  private renderProblem(problem: TaskProblem, title: string) {
     return html`<section class="panel"><h3>${title}</h3><p class=${problem.status === 'unavailable' ? 'unavailable' : 'problem'}>${this.problemText(problem)}</p></section>`;
   }
 
   private renderModes() {
-    const value = this.analysis.state.value;
+    const value = this.analysed.value;
     if (!value) return nothing;
     const nodes = value.analysis.bending[0]?.nodes_mm ?? [];
     return html`<section class="panel">
@@ -276,17 +311,38 @@ export class BwShapeView extends LitElement {
     </section>`;
   }
 
+  /** Plans running for other bars (each is stored on its own bar when done). */
+  private renderOtherPlans() {
+    const others = this.design.active().filter((task) => task.binding && task.binding.subject !== this.barId);
+    if (others.length === 0) return nothing;
+    return html`<ul class="others" data-testid="other-plans">
+      ${others.map((task) => {
+        const subject = task.binding!.subject;
+        const note = this.project?.bars.find((bar) => bar.id === subject)?.note ?? subject;
+        return html`<li class="spread">
+          <span role="status">Still planning ${note}${task.progress ? ` (${task.progress.done} of at most ${task.progress.total} solver runs)` : ''}; its plan will be kept with ${note}.</span>
+          <button @click=${() => this.design.cancel(subject)}>Cancel the plan for ${note}</button>
+        </li>`;
+      })}
+    </ul>`;
+  }
+
   private renderPlan() {
     const bar = this.bar!;
     const design = bar.design;
+    const planning = this.design.state(bar.id);
+    const progress = planning.progress;
     return html`<section class="panel" aria-labelledby="plan-heading">
       <h3 id="plan-heading">Plan the undercut</h3>
       <p class="muted">Finds an arch that reaches the targets from this blank, removing wood only and keeping at least ${formatMm(bar.session.limits.min_thickness_mm)} mm.</p>
       <div class="spread">
-        <button class="primary" ?disabled=${this.planning !== null || bar.current.section.shape !== 'rect'} @click=${() => void this.plan()}>Plan the undercut</button>
-        ${this.planning ? html`<progress aria-label="Planning progress"></progress><span role="status">${this.planProgress}</span><button @click=${() => this.planning?.abort()}>Cancel</button>` : nothing}
+        <button class="primary" ?disabled=${planning.running || bar.current.section.shape !== 'rect'} @click=${() => this.plan()}>Plan the undercut</button>
+        ${planning.running
+          ? html`<progress aria-label="Planning progress"></progress><span role="status">Planning…${progress ? ` ${progress.done} of at most ${progress.total} solver runs` : ''}</span><button @click=${() => this.design.cancel(bar.id)}>Cancel</button>`
+          : nothing}
       </div>
-      ${this.planProblem ? html`<p class=${this.planProblem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(this.planProblem)}</p>` : nothing}
+      ${this.renderOtherPlans()}
+      ${planning.problem ? html`<p class=${planning.problem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(planning.problem)}</p>` : nothing}
       ${design
         ? html`<p><strong>${design.feasible ? 'A plan reaches the targets.' : 'No plan reaches all targets;'}</strong> ${design.reason ?? ''}</p>
             <p>Predicted: ${design.cents_error.map((value, index) => html`${partialName(index)} ${formatCents(value)} cents${index < design.cents_error.length - 1 ? ' · ' : ''}`)}</p>
@@ -298,7 +354,7 @@ export class BwShapeView extends LitElement {
   }
 
   private renderEngineering() {
-    const { value, workerMs } = this.analysis.state;
+    const { value, workerMs } = this.analysed;
     const shape = this.shape;
     const material = shape && !('preset' in shape.material) ? shape.material : null;
     return html`<details class="panel">
@@ -323,7 +379,7 @@ export class BwShapeView extends LitElement {
     const project = this.project;
     const bar = this.bar;
     if (!project || !bar) return html`<p>Choose a bar in the keyboard list.</p>`;
-    const value = this.analysis.state.value;
+    const value = this.analysed.value;
     const nodes = value?.analysis.bending[0]?.nodes_mm ?? [];
     const rect = bar.current.section.shape === 'rect';
     return html`<div class="top">

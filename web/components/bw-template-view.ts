@@ -5,8 +5,9 @@
 import { LitElement, html, svg, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { cutInstructions, type BarFile, type ProjectBar, type ProjectFile } from '../../src/index.ts';
-import { LatestSolveController } from '../controllers/LatestSolveController.ts';
-import { quickSolver } from '../worker/SolverClient.ts';
+import { TaskController, workerJob } from '../controllers/TaskController.ts';
+import { solver } from '../worker/SolverClient.ts';
+import type { AnalyzeResult } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatMm, formatWhen } from '../format.ts';
 import './bw-bar-picker.ts';
@@ -92,7 +93,8 @@ export class BwTemplateView extends LitElement {
   @state() private paper: PaperName = 'a4-landscape';
   @state() private which: 'current' | 'advice' | 'design' = 'current';
 
-  private readonly analysis = new LatestSolveController<'analyze'>(this, quickSolver);
+  /** The fundamental's nodes of the shape printed, per bar (for the cord holes). */
+  private readonly analysis = new TaskController<AnalyzeResult>(this, { policy: 'latest' });
   private lastShape = '';
 
   private get bar(): ProjectBar | null {
@@ -112,7 +114,7 @@ export class BwTemplateView extends LitElement {
     const key = JSON.stringify(shape);
     if (key !== this.lastShape) {
       this.lastShape = key;
-      this.analysis.give({ kind: 'analyze', bar: shape, modes: 1, withShapes: false, withSensitivities: false });
+      this.analysis.run({ subject: bar.id, key }, workerJob(solver, 'analyze', { bar: shape, modes: 1, withShapes: false, withSensitivities: false }));
     }
   }
 
@@ -168,7 +170,9 @@ export class BwTemplateView extends LitElement {
     const span = paper.width - inset.left - inset.right;
     const pages = Math.max(1, Math.ceil(shape.length_mm / span));
     const segment = shape.length_mm / pages;
-    const nodes = this.analysis.state.value?.analysis.bending[0]?.nodes_mm ?? [];
+    // Cord holes only from the analysis of the very shape printed (never a previous shape's nodes).
+    const analysed = this.analysis.state(bar.id);
+    const nodes = analysed.valueBinding?.key === this.lastShape ? (analysed.value?.analysis.bending[0]?.nodes_mm ?? []) : [];
     const tiles = Array.from({ length: pages }, (_, index) => [index * segment, index === pages - 1 ? shape.length_mm : (index + 1) * segment] as const);
     const from = this.which === 'advice' ? bar.current : bar.blank;
     const table = shape.section.shape === 'rect' && shape.profile_mm ? cutInstructions(from, shape) : null;

@@ -16,12 +16,15 @@ import {
   removeLastStep,
   setAdvice,
   setMinimumThickness,
+  stableHash,
   type CutInstructions,
+  type NextCutResult,
   type ProjectBar,
   type ProjectFile,
 } from '../../src/index.ts';
-import { LatestSolveController } from '../controllers/LatestSolveController.ts';
-import { longSolver, quickSolver, type SolverOutcome } from '../worker/SolverClient.ts';
+import { TaskController, workerJob, type TaskProblem } from '../controllers/TaskController.ts';
+import { solver } from '../worker/SolverClient.ts';
+import type { AnalyzeResult } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
 import { formatCents, formatHz, formatMm, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
@@ -126,13 +129,25 @@ export class BwTuningView extends LitElement {
   @state() private heard: (number | null)[] | null = null;
   @state() private heardFrom: 'microphone' | 'file' = 'microphone';
   @state() private roundError = '';
-  @state() private adviceRun: AbortController | null = null;
-  @state() private adviceProblem: Exclude<SolverOutcome<'nextCut'>, { status: 'ok' }> | null = null;
   @state() private listenReady = false;
   @state() private actionError = '';
 
-  /** Prediction for the present shape from the starting-guess material (before calibration). */
-  private readonly prediction = new LatestSolveController<'analyze'>(this, quickSolver);
+  /** Prediction for the present shape from the starting-guess material (before calibration), per bar. */
+  private readonly prediction = new TaskController<AnalyzeResult>(this, { policy: 'latest' });
+  /**
+   * Next-cut advice, per bar: stored on the bar whose session it was worked out from, and dropped
+   * if that session changed meanwhile (a round recorded or removed).
+   */
+  private readonly advice = new TaskController<NextCutResult>(this, {
+    isCurrent: (binding) => {
+      const bar = this.project?.bars.find((candidate) => candidate.id === binding.subject);
+      return bar !== undefined && stableHash(bar.session) === binding.key;
+    },
+    onResult: (result, binding) => {
+      const sent = sendEdit(this, (project) => setAdvice(project, binding.subject, result, new Date().toISOString()));
+      return sent.ok ? undefined : sent.error.message;
+    },
+  });
   private lastShape = '';
   private adviceKey = '';
 
@@ -142,11 +157,6 @@ export class BwTuningView extends LitElement {
     if (load) void load().then(() => (this.listenReady = true)).catch(() => (this.listenReady = false));
   }
 
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.adviceRun?.abort();
-  }
-
   private get bar(): ProjectBar | null {
     return this.project?.bars.find((bar) => bar.id === this.barId) ?? null;
   }
@@ -154,25 +164,29 @@ export class BwTuningView extends LitElement {
   protected override willUpdate(changed: Map<string, unknown>): void {
     const bar = this.bar;
     if (changed.has('barId')) {
+      // Advice and predictions are worked out for the bar on screen: the previous bar's stop.
+      const previous = changed.get('barId');
+      if (typeof previous === 'string' && previous) {
+        this.advice.forget(previous);
+        this.prediction.forget(previous);
+      }
       this.heard = null;
       this.roundError = '';
-      this.adviceProblem = null;
-      this.adviceRun?.abort();
-      this.prediction.reset();
       this.lastShape = '';
     }
     if (!bar || !this.project) return;
     const key = JSON.stringify(bar.current);
     if (key !== this.lastShape) {
       this.lastShape = key;
-      this.prediction.give({ kind: 'analyze', bar: bar.current, modes: Math.max(3, registerOf(this.project, bar).ratios.length), withShapes: false, withSensitivities: false });
+      const payload = { bar: bar.current, modes: Math.max(3, registerOf(this.project, bar).ratios.length), withShapes: false, withSensitivities: false };
+      this.prediction.run({ subject: bar.id, key }, workerJob(solver, 'analyze', payload));
     }
     const steps = bar.session.steps.length;
     const adviceKey = `${bar.id}:${steps}:${key}`;
     // Advice is for the bar as last measured: once it has been cut again, the next thing is a round.
     if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
       this.adviceKey = adviceKey;
-      void this.requestAdvice(bar);
+      this.requestAdvice(bar);
     }
   }
 
@@ -182,29 +196,24 @@ export class BwTuningView extends LitElement {
     return last !== undefined && JSON.stringify(last.bar) !== JSON.stringify(bar.current);
   }
 
-  private async requestAdvice(bar: ProjectBar): Promise<void> {
-    this.adviceRun?.abort();
-    const controller = new AbortController();
-    this.adviceRun = controller;
-    this.adviceProblem = null;
-    const outcome = await longSolver.request({ kind: 'nextCut', session: bar.session }, { signal: controller.signal });
-    if (this.adviceRun !== controller) return;
-    this.adviceRun = null;
-    if (outcome.status === 'ok') {
-      const result = outcome.value;
-      const sent = sendEdit(this, (project) => setAdvice(project, bar.id, result, new Date().toISOString()));
-      if (!sent.ok) this.adviceProblem = { status: 'failed', message: sent.error.message };
-    } else this.adviceProblem = outcome;
+  /** Works out the next cut from `bar`'s session (stored on that bar when done). */
+  private requestAdvice(bar: ProjectBar): void {
+    this.advice.run({ subject: bar.id, key: stableHash(bar.session) }, workerJob(solver, 'nextCut', { session: bar.session }));
+  }
+
+  /** The prediction for the bar on screen. */
+  private get predicted(): AnalyzeResult | null {
+    return this.prediction.state(this.barId).value;
   }
 
   private expectedHz(): number[] {
     const bar = this.bar!;
-    return bar.expected_hz ?? this.prediction.state.value?.analysis.bending.map((mode) => mode.hz) ?? barTargetHz(this.project!, bar);
+    return bar.expected_hz ?? this.predicted?.analysis.bending.map((mode) => mode.hz) ?? barTargetHz(this.project!, bar);
   }
 
   /** The modes the listening element labels heard partials against (predicted for this shape). */
   private expectedModes(): { bending: number[]; other: { family: string; mode: number; hz: number }[] } {
-    const analysis = this.prediction.state.value?.analysis;
+    const analysis = this.predicted?.analysis;
     return {
       bending: this.expectedHz(),
       other: analysis ? [...analysis.torsion.map((mode) => ({ family: 'torsion', mode: mode.mode, hz: mode.hz })), ...analysis.lateral.map((mode) => ({ family: 'lateral', mode: mode.mode, hz: mode.hz }))] : [],
@@ -226,7 +235,7 @@ export class BwTuningView extends LitElement {
 
   private onRound(event: CustomEvent<RoundSubmitDetail>): void {
     const bar = this.bar!;
-    const predicted = this.prediction.state.value?.analysis.bending.map((mode) => mode.hz).slice(0, event.detail.hz.length);
+    const predicted = this.predicted?.analysis.bending.map((mode) => mode.hz).slice(0, event.detail.hz.length);
     const options: Parameters<typeof recordStep>[3] = { at: new Date().toISOString(), source: event.detail.source };
     if (predicted) options.predictedHz = predicted;
     const outcome = sendEdit(this, (project) => recordStep(project, bar.id, event.detail.hz, options));
@@ -290,18 +299,20 @@ export class BwTuningView extends LitElement {
                 ${expected.map((standing, index) => html`<bw-cents-readout compact label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz}></bw-cents-readout>`)}
               </div>`
           : nothing}
-        <bw-profile-drawing .bar=${bar.current} .nodesMm=${this.prediction.state.value?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
+        <bw-profile-drawing .bar=${bar.current} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
       </section>`;
     }
     if (!advice) {
+      const working = this.advice.state(bar.id);
+      const problem = working.problem;
       return html`<section class="panel" aria-labelledby="advice-heading">
         <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
-        ${this.adviceRun
-          ? html`<div class="row" role="status"><progress aria-label="Working out the next cut"></progress> Working out the next cut… <button @click=${() => this.adviceRun?.abort()}>Cancel</button></div>`
-          : this.adviceProblem
-            ? html`<p class=${this.adviceProblem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(this.adviceProblem)}</p>
+        ${working.running
+          ? html`<div class="row" role="status"><progress aria-label="Working out the next cut"></progress> Working out the next cut… <button @click=${() => this.advice.cancel(bar.id)}>Cancel</button></div>`
+          : problem
+            ? html`<p class=${problem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(problem)}</p>
                 <p class="muted">You can still record rounds, and enter a cut you made by hand in the <button @click=${() => this.dispatchEvent(new NavigateEvent('shape', bar.id))}>Shape view</button>.</p>
-                ${this.adviceProblem.status !== 'unavailable' ? html`<button @click=${() => void this.requestAdvice(bar)}>Try again</button>` : nothing}`
+                ${problem.status !== 'unavailable' ? html`<button @click=${() => this.requestAdvice(bar)}>Try again</button>` : nothing}`
             : nothing}
       </section>`;
     }
@@ -318,7 +329,7 @@ export class BwTuningView extends LitElement {
           : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
               ${extras.warnings && extras.warnings.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${extras.warnings.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
               <bw-cautions></bw-cautions>
-              <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.prediction.state.value?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
+              <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
               <bw-station-table .plan=${plan}></bw-station-table>
               <h4>Expected after this cut</h4>
               <div class="after">
@@ -342,8 +353,10 @@ export class BwTuningView extends LitElement {
     return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field></div>`;
   }
 
-  private problemText(problem: Exclude<SolverOutcome<'nextCut'>, { status: 'ok' }>): string {
+  private problemText(problem: TaskProblem): string {
     switch (problem.status) {
+      case 'stale':
+        return 'The rounds changed while the advice was worked out; it was not kept.';
       case 'input-error':
         return `${problem.field}: ${problem.rule}`;
       case 'unavailable':

@@ -1,11 +1,15 @@
 // The whole-keyboard plan as the workbench runs it: planKeyboard on a pool of web workers, with
 // progress, cancel and resume from the plan stored in the project, and the result stored in the
 // project through the app shell's keeper. One run at a time for the page; it carries on while
-// the maker looks at other views, and any view can show its progress.
+// the maker looks at other views, and any view can show its progress. The run's bookkeeping
+// (running, stopping, progress, the result bound to the project and keyboard it was asked for)
+// is a TaskBook's, in cancel mode 'finish': Cancel stops after the tasks in flight and what is
+// done is still stored.
 import type { ReactiveController, ReactiveControllerHost } from 'lit';
-import { isInputError, keyboardFileFromProject, planKeyboard, storePlanInProject, withKeyboardPlan, type KeyboardFile, type KeyboardPlan, type PlanProgress, type ProjectFile, type ProjectPlanChoice } from '../../src/index.ts';
+import { InputError, isInputError, keyboardFileFromProject, planKeyboard, stableHash, storePlanInProject, withKeyboardPlan, type KeyboardFile, type KeyboardPlan, type PlanProgress, type ProjectFile, type ProjectPlanChoice } from '../../src/index.ts';
 import { KeyboardWorkerPool, planWorkerCount } from '../worker/KeyboardWorkerPool.ts';
 import { sendEdit, type EditOutcome } from '../events.ts';
+import { TaskBook, type TaskBinding } from './TaskController.ts';
 
 /** Where a run stands, for the views. */
 export interface PlanRunState {
@@ -31,11 +35,30 @@ export interface PlanRunOptions {
   apply: (change: (project: ProjectFile) => ProjectFile) => EditOutcome;
 }
 
+/** The book's one subject: a page runs one keyboard plan at a time. */
+const subject = 'keyboard-plan';
+
+/** What a run was asked for, to store its plan with. */
+interface RunInputs {
+  projectId: string;
+  keyboard: KeyboardFile;
+  apply: PlanRunOptions['apply'];
+}
+
 /** Runs keyboard plans for the page and tells its subscribers. */
 export class KeyboardPlanRun {
-  state: PlanRunState = { running: false, stopping: false, progress: null, kept: null, workers: planWorkerCount(), message: '', problem: null };
   private readonly listeners = new Set<(state: PlanRunState) => void>();
-  private controller: AbortController | null = null;
+  private readonly book = new TaskBook<KeyboardPlan, PlanProgress>({ cancelMode: 'finish', onResult: (plan, binding) => this.store(plan, binding) }, () => this.notify());
+  private extra: Pick<PlanRunState, 'kept' | 'workers' | 'message' | 'problem'> = { kept: null, workers: planWorkerCount(), message: '', problem: null };
+  private inputs = new Map<string, RunInputs>();
+
+  /** The run's state now. */
+  get state(): PlanRunState {
+    const task = this.book.state(subject);
+    const failed = task.problem && !task.running ? task.problem : null;
+    const problem = failed?.status === 'input-error' ? { field: failed.field, rule: failed.rule } : failed?.status === 'failed' ? { field: '', rule: failed.message } : this.extra.problem;
+    return { running: task.running, stopping: task.stopping, progress: task.progress, ...this.extra, problem };
+  }
 
   /** Calls `listener` on every change; returns an unsubscribe function. */
   subscribe(listener: (state: PlanRunState) => void): () => void {
@@ -43,25 +66,28 @@ export class KeyboardPlanRun {
     return () => this.listeners.delete(listener);
   }
 
-  private set(change: Partial<PlanRunState>): void {
-    this.state = { ...this.state, ...change };
-    for (const listener of this.listeners) listener(this.state);
+  private notify(): void {
+    const state = this.state;
+    for (const listener of this.listeners) listener(state);
+  }
+
+  private set(change: Partial<typeof this.extra>): void {
+    this.extra = { ...this.extra, ...change };
+    this.notify();
   }
 
   /** Stops the run after the tasks in progress; what is done is stored. */
   cancel(): void {
-    if (!this.controller || this.controller.signal.aborted) return;
-    this.controller.abort();
-    this.set({ stopping: true });
+    this.book.cancel(subject);
   }
 
   /**
    * Plans the chosen notes of the project: derives the keyboard file, resumes from the stored
    * plan (unless `fresh`), runs on the worker pool and stores the plan (complete or cut short)
-   * with every designed bar's plan on the project's matching bar. A choice that breaks a rule is
-   * reported with its field and nothing runs.
+   * with every designed bar's plan on the project's matching bar — on the project it was asked
+   * for. A choice that breaks a rule is reported with its field and nothing runs.
    */
-  async start(project: ProjectFile, choice: ProjectPlanChoice, options: PlanRunOptions): Promise<void> {
+  start(project: ProjectFile, choice: ProjectPlanChoice, options: PlanRunOptions): void {
     if (this.state.running) return;
     let keyboard: KeyboardFile;
     try {
@@ -72,31 +98,46 @@ export class KeyboardPlanRun {
       return;
     }
     const stored = options.fresh ? undefined : project.keyboard_plan?.plan;
-    const pool = new KeyboardWorkerPool(planWorkerCount());
-    const controller = new AbortController();
-    this.controller = controller;
-    this.set({ running: true, stopping: false, progress: null, kept: null, workers: pool.size, message: '', problem: null });
-    let plan: KeyboardPlan;
-    try {
-      plan = await planKeyboard(keyboard, {
-        runner: pool,
-        ...(stored ? { previous: { bars: stored.bars, advice: stored.advice } } : {}),
-        signal: controller.signal,
-        onProgress: (progress) => this.set({ progress, ...(progress.stage === 'design' && progress.note === undefined ? { kept: progress.done } : {}) }),
-      });
-    } catch (error) {
-      this.set({ running: false, stopping: false, problem: isInputError(error) ? { field: error.field, rule: error.rule } : { field: '', rule: error instanceof Error ? error.message : String(error) }, message: 'The plan stopped on a problem; the plan stored before is unchanged.' });
-      return;
-    } finally {
-      pool.close();
-      this.controller = null;
-    }
+    const workers = planWorkerCount();
+    const key = stableHash({ project: project.id, keyboard, stored: stored ?? null });
+    this.inputs = new Map([[key, { projectId: project.id, keyboard, apply: options.apply }]]);
+    this.set({ kept: null, workers, message: '', problem: null });
+    this.book.run({ subject, key }, async ({ signal, onProgress }) => {
+      const pool = new KeyboardWorkerPool(workers);
+      const started = performance.now();
+      try {
+        const plan = await planKeyboard(keyboard, {
+          runner: pool,
+          ...(stored ? { previous: { bars: stored.bars, advice: stored.advice } } : {}),
+          signal,
+          onProgress: (progress) => {
+            if (progress.stage === 'design' && progress.note === undefined) this.set({ kept: progress.done });
+            onProgress(progress);
+          },
+        });
+        return { status: 'ok', value: plan, elapsedMs: performance.now() - started };
+      } catch (error) {
+        this.set({ message: 'The plan stopped on a problem; the plan stored before is unchanged.' });
+        return isInputError(error)
+          ? { status: 'input-error', source: error.source, field: error.field, rule: error.rule, message: error.message }
+          : { status: 'failed', message: error instanceof Error ? error.message : String(error) };
+      } finally {
+        pool.close();
+      }
+    });
+  }
+
+  /** Stores a finished (or stopped) plan on the project it was asked for; returns a problem, if any. */
+  private store(plan: KeyboardPlan, binding: TaskBinding): string | void {
+    const inputs = this.inputs.get(binding.key);
+    if (!inputs) return;
     const at = new Date().toISOString();
     let missing: string[] = [];
-    const outcome = options.apply((current) => {
+    const outcome = inputs.apply((current) => {
+      if (current.id !== inputs.projectId) throw new InputError('plan', 'project', 'the plan was made for another project, which is no longer open');
       const placed = storePlanInProject(current, plan, at);
       missing = placed.missing;
-      return withKeyboardPlan(placed.project, keyboard, plan, at);
+      return withKeyboardPlan(placed.project, inputs.keyboard, plan, at);
     });
     const s = plan.summary;
     const counts = `${s.in_tolerance} in tolerance, ${s.out_of_tolerance} out of tolerance, ${s.infeasible} cannot be made on their blank`;
@@ -105,7 +146,7 @@ export class KeyboardPlanRun {
       : s.complete
         ? `Planned ${s.bars} bars: ${counts}.${missing.length ? ` ${missing.length} planned notes have no bar in the project yet; they are in the cut list and the templates.` : ''}`
         : `Stopped: ${s.designed} of ${s.bars} bars planned (${counts}). Press “Resume plan” to carry on from here.`;
-    this.set({ running: false, stopping: false, message, problem: outcome.ok ? null : { field: '', rule: outcome.error.rule } });
+    this.set({ message, problem: outcome.ok ? null : { field: '', rule: outcome.error.rule } });
   }
 }
 

@@ -25,7 +25,7 @@ export class SaveBeforeUpdateEvent extends Event {
 }
 
 /** Message the page posts to a waiting service worker: take over now. */
-export const activateMessage = { type: 'activate-update' } as const;
+const activateMessage = { type: 'activate-update' } as const;
 
 class AppUpdates {
   state: AppUpdateState = { waiting: false, activeElsewhere: false, problem: null };

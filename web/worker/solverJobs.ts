@@ -1,57 +1,61 @@
-// The computations behind each worker request: thin calls into the library's public surface.
-// Bad input raises the library's InputError, which the worker forwards with its field and rule.
-import type { AnalyzeManyRequest, AnalyzeRequest, ChimeSetRequest, DesignRequest, NextCutRequest, ResonatorRequest, SolverResults } from './protocol.ts';
-import { analyzeBar, chimeCutListCsv, closedTubeResonator, designBar, nextCut, parseChimeSetFile, planChimeSet, whereToCutMap, type CutEffectMap, type DesignResult, type NextCutResult } from '../../src/index.ts';
+// The computations behind each solver job: thin calls into the library's public surface. Bad
+// input raises the library's InputError, which serveJobs forwards with its field and rule. Long
+// jobs take the job's signal: a design stops at its next solver call, a many-bar analysis
+// between bars.
+import type { JobHandlers } from './serveJobs.ts';
+import type { SolverJobs } from './solverProtocol.ts';
+import { analyzeBar, chimeCutListCsv, closedTubeResonator, designBar, nextCut, parseChimeSetFile, planChimeSet, whereToCutMap, type CutEffectMap } from '../../src/index.ts';
 
-/** Raised inside a batch when the page cancelled it. */
-export class Cancelled extends Error {
-  constructor() {
-    super('cancelled');
-    this.name = 'Cancelled';
-  }
+/** Progress of next-cut advice in percent: calibration is the first 40 %, planning the rest. */
+function nextCutPercent(stage: string, fraction: number): number {
+  return Math.round(100 * (stage === 'calibrating' ? fraction * 0.4 : stage === 'planning' ? 0.4 + 0.6 * fraction : 1));
 }
 
+/** The solver worker's handlers. */
+export const solverHandlers: JobHandlers<SolverJobs> = {
+  /** One bar's modes (and where-to-cut map when asked and available). */
+  analyze(payload) {
+    const analysis = analyzeBar(payload.bar, { modes: payload.modes, shapes: payload.withShapes });
+    let sensitivities: CutEffectMap | null = null;
+    if (payload.withSensitivities && payload.bar.section.shape === 'rect') sensitivities = whereToCutMap(payload.bar, { partials: Math.min(3, payload.modes) });
+    return { analysis, sensitivities };
+  },
 
-/** One bar's modes (and where-to-cut map when asked and available). */
-export function runAnalyze(request: AnalyzeRequest): SolverResults['analyze'] {
-  const analysis = analyzeBar(request.bar, { modes: request.modes, shapes: request.withShapes });
-  let sensitivities: CutEffectMap | null = null;
-  if (request.withSensitivities && request.bar.section.shape === 'rect') sensitivities = whereToCutMap(request.bar, { partials: Math.min(3, request.modes) });
-  return { analysis, sensitivities };
-}
-
-/** Many bars, one at a time; `checkpoint` yields to the message loop and throws when cancelled. */
-export async function runAnalyzeMany(request: AnalyzeManyRequest, checkpoint: (done: number) => Promise<void>): Promise<SolverResults['analyzeMany']> {
-  const results: SolverResults['analyzeMany'] = [];
-  for (const [index, entry] of request.bars.entries()) {
-    await checkpoint(index);
-    try {
-      results.push({ id: entry.id, analysis: analyzeBar(entry.bar, { modes: request.modes }), error: null });
-    } catch (error) {
-      results.push({ id: entry.id, analysis: null, error: error instanceof Error ? error.message : String(error) });
+  /** Many bars, one at a time, yielding between bars so a cancel can arrive. */
+  async analyzeMany(payload, job) {
+    const results: SolverJobs['analyzeMany']['result'] = [];
+    for (const [index, entry] of payload.bars.entries()) {
+      await job.checkpoint();
+      job.progress(index, payload.bars.length);
+      try {
+        results.push({ id: entry.id, analysis: analyzeBar(entry.bar, { modes: payload.modes }), error: null });
+      } catch (error) {
+        results.push({ id: entry.id, analysis: null, error: error instanceof Error ? error.message : String(error) });
+      }
     }
-  }
-  await checkpoint(request.bars.length);
-  return results;
-}
+    await job.checkpoint();
+    job.progress(payload.bars.length, payload.bars.length);
+    return results;
+  },
 
-/** An undercut plan; `progress(done, total)` reports solver calls. */
-export function runDesign(request: DesignRequest, progress: (done: number, total: number) => void): DesignResult {
-  return designBar(request.bar, { target: request.target, limits: request.limits }, { onProgress: (step) => progress(step.solves, step.maxSolves) }, 'plan');
-}
+  /** An undercut plan; progress counts solver calls. */
+  design(payload, job) {
+    return designBar(payload.bar, { target: payload.target, limits: payload.limits }, { signal: job.signal, onProgress: (step) => job.progress(step.solves, step.maxSolves) }, 'plan');
+  },
 
-/** The next cut of a session; `progress(done, total)` reports the stage in percent. */
-export function runNextCut(request: NextCutRequest, progress: (done: number, total: number) => void): NextCutResult {
-  return nextCut(request.session, { source: 'session', onProgress: (stage, fraction) => progress(Math.round(100 * (stage === 'calibrating' ? fraction * 0.4 : stage === 'planning' ? 0.4 + 0.6 * fraction : 1)), 100) });
-}
+  /** The next cut of a session; progress in percent. */
+  nextCut(payload, job) {
+    return nextCut(payload.session, { source: 'session', onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
+  },
 
-/** Resonator tubes for a set of fundamentals. */
-export function runResonators(request: ResonatorRequest): SolverResults['resonators'] {
-  return request.rows.map((row) => ({ id: row.id, ...closedTubeResonator({ hz: row.hz, innerDiameterMm: row.innerDiameterMm, temperatureC: request.temperatureC, end: request.end }) }));
-}
+  /** Resonator tubes for a set of fundamentals. */
+  resonators(payload) {
+    return payload.rows.map((row) => ({ id: row.id, ...closedTubeResonator({ hz: row.hz, innerDiameterMm: row.innerDiameterMm, temperatureC: payload.temperatureC, end: payload.end }) }));
+  },
 
-/** A chime set: validated as a chime-set file (InputError names the field), planned, and its cut list. */
-export function runChimeSet(request: ChimeSetRequest): SolverResults['chimeSet'] {
-  const plan = planChimeSet(parseChimeSetFile(request.file, 'chime set'));
-  return { plan, csv: chimeCutListCsv(plan) };
-}
+  /** A chime set: validated as a chime-set file (InputError names the field), planned, and its cut list. */
+  chimeSet(payload) {
+    const plan = planChimeSet(parseChimeSetFile(payload.file, 'chime set'));
+    return { plan, csv: chimeCutListCsv(plan) };
+  },
+};

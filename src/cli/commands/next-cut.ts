@@ -25,7 +25,7 @@ function statusLine(result: NextCutResult): string {
 }
 
 /** The human-readable report of a next-cut result. */
-export function formatNextCut(result: NextCutResult, title: string): string {
+function formatNextCut(result: NextCutResult, title: string): string {
   const lines: string[] = [];
   const c = result.calibration;
   lines.push(title);

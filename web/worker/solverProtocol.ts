@@ -1,0 +1,67 @@
+// The solver worker's jobs (solverWorker.ts), in the workbench's one job protocol
+// (jobProtocol.ts): for each kind, the payload the page sends and the result it gets back.
+import type { BarAnalysis, BarFile, ChimeSetPlan, CutEffectMap, DesignResult, NextCutResult, ResonatorResult, SessionFile } from '../../src/index.ts';
+
+/** Analyse one bar: its modes, optionally shapes and the where-to-cut map. */
+export interface AnalyzePayload {
+  bar: BarFile;
+  modes: number;
+  /** Include sampled mode shapes for plotting. */
+  withShapes: boolean;
+  /** Also return the where-to-cut map (cents per 0.1 mm removed over a 10 mm strip). */
+  withSensitivities: boolean;
+}
+
+/** Analyse many bars (the keyboard overview), with progress; cancellable between bars. */
+export interface AnalyzeManyPayload {
+  bars: { id: string; bar: BarFile }[];
+  modes: number;
+}
+
+/** Plan an undercut reaching the targets (with progress; cancellable). */
+export interface DesignPayload {
+  bar: BarFile;
+  target: { note: string; a4: number; ratios: number[]; tolerance_cents: number[] };
+  limits: { min_thickness_mm: number };
+}
+
+/** The next cut of a tuning session. */
+export interface NextCutPayload {
+  session: SessionFile;
+}
+
+/** Resonator tube lengths for a set of fundamentals at a temperature. */
+export interface ResonatorPayload {
+  rows: { id: string; hz: number; innerDiameterMm: number }[];
+  temperatureC: number;
+  end: 'unflanged' | 'flanged';
+}
+
+/** A chime set as the maker entered it (a chime-set file's fields, checked in the worker). */
+export interface ChimeSetPayload {
+  /** The chime-set file value (format "barwright.chime-set"), not yet validated. */
+  file: unknown;
+}
+
+/** One bar's analysis. */
+export interface AnalyzeResult {
+  analysis: BarAnalysis;
+  sensitivities: CutEffectMap | null;
+}
+
+/** One bar's line of a many-bar analysis. */
+export interface AnalyzeManyEntry {
+  id: string;
+  analysis: BarAnalysis | null;
+  error: string | null;
+}
+
+/** The solver's job catalog (a type alias, so it fits JobCatalog's index signature). */
+export type SolverJobs = {
+  analyze: { payload: AnalyzePayload; result: AnalyzeResult };
+  analyzeMany: { payload: AnalyzeManyPayload; result: AnalyzeManyEntry[] };
+  design: { payload: DesignPayload; result: DesignResult };
+  nextCut: { payload: NextCutPayload; result: NextCutResult };
+  resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };
+  chimeSet: { payload: ChimeSetPayload; result: { plan: ChimeSetPlan; csv: string } };
+};
