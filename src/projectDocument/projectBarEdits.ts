@@ -25,7 +25,12 @@ export function barName(bar: ProjectBar): string {
 
 /** Whether a bar (or blank) is timber or metal (materialFamily of its material): the words shown with it depend on it. */
 export function barMaterialFamily(bar: BarFile): 'timber' | 'metal' {
-  return materialFamily(materialFromFile(bar.material));
+  return materialFileFamily(bar.material);
+}
+
+/** Whether a bar-file material (explicit values or a preset) is timber or metal (materialFamily). */
+export function materialFileFamily(material: BarFile['material']): 'timber' | 'metal' {
+  return materialFamily(materialFromFile(material));
 }
 
 /** Checks a bar name: trimmed, 1–80 characters. */
@@ -111,7 +116,8 @@ export function suggestBlank(project: ProjectFile, note: string, registerId: str
     const semitones = midi - nearest.midi;
     blank.length_mm = Math.max(10, Math.round(nearest.bar.blank.length_mm * 2 ** (-semitones / 24)));
     blank.label = note;
-    return { blank, scaledFrom: nearest.bar.note, rule: `${nearest.bar.note}'s blank, its length × 2^(${-semitones}/24) (a bar of one section sounds ∝ 1/length²)` };
+    const exponent = `${semitones > 0 ? '−' : ''}${Math.abs(semitones)}/24`;
+    return { blank, scaledFrom: nearest.bar.note, rule: `${nearest.bar.note}'s blank, its length × 2^(${exponent}) (a bar of one section sounds ∝ 1/length²)` };
   }
   const material = structuredClone(project.instrument.material);
   if (register.family === 'chime') {
