@@ -344,6 +344,8 @@ describe('words', () => {
     await openView(page, 'shape/bar-E5');
     await page.getByLabel('Start from a preset').selectOption('aluminium-6061-t6');
     await expect.poll(() => visibleText(page, 'bw-blank-form')).toMatch(/Metal .*Stiffness \(E\)/);
+    // Stations to shape an undercut: the cut's cautions appear beside the drawing.
+    await page.getByRole('button', { name: 'Add stations every 10 mm to shape an undercut' }).click();
     await page.locator('bw-shape-view details summary').filter({ hasText: 'Engineering detail' }).click();
     await expect.poll(() => visibleText(page, 'bw-shape-view'), { timeout: 60_000 }).toMatch(/metal is stiff in shear/);
     const metalText = await visibleText(page, 'bw-shape-view');
@@ -356,7 +358,7 @@ describe('words', () => {
 /** Every view of the workbench, with what to wait for before it is shown as the maker sees it. */
 const views: { hash: string; name: string; ready: (page: Page) => Promise<unknown> }[] = [
   { hash: 'keyboard', name: 'keyboard', ready: (page) => expect.poll(() => page.locator('[data-testid="bar-list"]').innerText(), { timeout: 90_000 }).not.toMatch(/predicting/) },
-  { hash: 'shape/bar-A2', name: 'shape', ready: (page) => page.locator('[data-testid="predicted-partials"] bw-cents-readout').first().waitFor({ timeout: 60_000 }) },
+  { hash: 'shape/bar-A2', name: 'shape', ready: (page) => expect.poll(() => page.locator('[data-testid="predicted-partials"] bw-cents-readout .detail').first().innerText(), { timeout: 60_000 }).toMatch(/^\d/) },
   { hash: 'tuning/bar-A2', name: 'tuning', ready: (page) => page.locator('[data-testid="mark-cut-done"]').waitFor({ timeout: 120_000 }) },
   { hash: 'resonators', name: 'resonators', ready: (page) => page.locator('[data-testid="resonators"]').waitFor() },
   { hash: 'template/bar-C4', name: 'template', ready: (page) => page.locator('[data-testid="template-tile"]').first().waitFor() },

@@ -219,8 +219,12 @@ describe('workbench in Chromium', () => {
     await second.page.locator('#import-file').setInputFiles({ name: 'garbage.json', mimeType: 'application/json', buffer: Buffer.from('{"format": "barwright.project", "version": ') });
     await expect.poll(() => error.innerText()).toMatch(/garbage\.json: \(file\): is not valid JSON/);
 
-    // The good file imports beside the demo and opens, with the round recorded in the first profile.
+    // The good file has the demo's name: nothing is imported until the maker chooses; kept beside
+    // the demo under a free name, it opens with the round recorded in the first profile.
     await second.page.locator('#import-file').setInputFiles(exported);
+    await expect.poll(() => second.page.locator('[data-testid="import-choice"]').innerText()).toMatch(/is already stored/);
+    expect(await second.page.locator('#project option').count()).toBe(1);
+    await second.page.getByRole('button', { name: /^Keep both: import it as / }).click();
     await expect.poll(() => second.page.locator('#project option').count()).toBe(2);
     await expect.poll(() => second.page.locator('[data-testid="bar-list"] tr[data-bar="bar-E5"]').innerText()).toMatch(/heard/);
     await second.page.reload();

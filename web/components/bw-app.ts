@@ -132,6 +132,9 @@ export class BwApp extends LitElement {
         nav {
           padding-top: 0.35rem;
         }
+        nav button {
+          padding: 0.5rem 0.75rem;
+        }
       }
       main {
         padding: 1rem 1.2rem 3rem;
@@ -173,6 +176,10 @@ export class BwApp extends LitElement {
         border: 2px solid var(--bw-caution-ink);
       }
       @media print {
+        /* On paper the page is only as long as what it prints (100vh is a whole sheet there). */
+        :host {
+          min-height: 0;
+        }
         header,
         .banner {
           display: none;

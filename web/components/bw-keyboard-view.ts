@@ -52,6 +52,14 @@ export class BwKeyboardView extends LitElement {
       .range input {
         width: 5.5rem;
       }
+      .settings + h3 {
+        margin-top: 1rem;
+      }
+      .hint {
+        display: block;
+        font-size: 0.85rem;
+        color: var(--bw-ink-muted);
+      }
       .range .pair {
         display: flex;
         gap: 0.4rem;
@@ -162,7 +170,11 @@ export class BwKeyboardView extends LitElement {
                   <td>
                     <label class="visually-hidden" for=${`ratios-${register.id}`}>Target ratios of ${register.label}</label>
                     <input id=${`ratios-${register.id}`} .value=${register.ratios.join(' : ')} @change=${(event: Event) => this.editRatios(register, (event.target as HTMLInputElement).value)} aria-invalid=${this.registerErrors[`${register.id}.ratios`] ? 'true' : 'false'} />
-                    ${this.registerErrors[`${register.id}.ratios`] ? html`<span class="field-error" role="alert">✕ ${this.registerErrors[`${register.id}.ratios`]}</span>` : nothing}
+                    ${this.registerErrors[`${register.id}.ratios`]
+                      ? html`<span class="field-error" role="alert">✕ ${this.registerErrors[`${register.id}.ratios`]}</span>`
+                      : register.ratios.length === 1
+                        ? html`<span class="hint">fundamental only</span>`
+                        : nothing}
                   </td>
                   <td>
                     <label class="visually-hidden" for=${`tolerance-${register.id}`}>Tolerances of ${register.label} in cents</label>

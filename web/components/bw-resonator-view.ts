@@ -105,11 +105,28 @@ export class BwResonatorView extends LitElement {
         .table-wrap {
           overflow: visible;
         }
+        table {
+          font-size: 10pt;
+        }
+        th,
+        td {
+          padding: 0.15rem 0.4rem;
+        }
+        td.note,
         td.length {
-          font-size: 1.1rem;
+          font-size: 12pt;
+        }
+        ul.remedies {
+          font-size: 9pt;
         }
         tr.warned td {
           background: none;
+        }
+        h3 {
+          font-size: 13pt;
+        }
+        .big-temperature {
+          font-size: 13pt;
         }
       }
     `,

@@ -266,6 +266,7 @@ export class BwShapeView extends LitElement {
             .hz=${standing.hz}
             .targetHz=${standing.targetHz}
             .tolerance=${standing.toleranceCents}
+            empty-words=${busy ? 'working out…' : 'no prediction'}
           ></bw-cents-readout>`,
         )}
       </div>

@@ -43,6 +43,13 @@ export class BwStatusStrip extends LitElement {
       .nowrap {
         white-space: nowrap;
       }
+      /* Many registers: their targets stay on one line (all of them in the hover text). */
+      .ratios dd {
+        max-width: 26rem;
+        overflow: hidden;
+        text-overflow: ellipsis;
+        white-space: nowrap;
+      }
       dd {
         margin: 0;
         font-weight: 700;
