@@ -43,7 +43,7 @@ const pastIndex = {
 };
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'dist-cli/**', 'node_modules/**', 'test/artifacts/**', 'coverage/**'] },
+  { ignores: ['dist/**', 'build/**', 'node_modules/**', 'test/artifacts/**', 'coverage/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -28,7 +28,7 @@ export interface WorkerPoolOptions {
   size?: number;
 }
 
-/** The plain-JavaScript entry of every worker: registers tsx, then imports the task module. */
+/** The plain-JavaScript entry of a worker whose task module is TypeScript: registers tsx, then imports it. */
 const bootstrapUrl = new URL('./workerBootstrap.mjs', import.meta.url);
 
 interface Pending<Result> {
@@ -37,10 +37,12 @@ interface Pending<Result> {
 }
 
 /**
- * Starts `size` worker threads on the module at `moduleUrl` (a `.ts` file whose top level calls
- * serveWorkerTasks) and hands tasks to whichever is free, one at a time each. Each worker starts
- * from workerBootstrap.mjs, which registers tsx and imports the module (Node 20 does not apply
- * `--import tsx` hooks to a worker's own entry file). Errors thrown in a task come back as errors of the
+ * Starts `size` worker threads on the module at `moduleUrl` (a module whose top level calls
+ * serveWorkerTasks) and hands tasks to whichever is free, one at a time each. A plain-JavaScript
+ * module (the built command line's build/cli/keyboardBarWorker.js) is each thread's entry itself;
+ * a `.ts` module (run from the sources: tests, bench) starts from workerBootstrap.mjs, which
+ * registers tsx, a dev dependency, and imports it (Node 20 does not apply `--import tsx` hooks to
+ * a worker's own entry file). Errors thrown in a task come back as errors of the
  * same kind (an InputError stays an InputError). Cancelling is the batch's job: it stops
  * submitting; close() terminates the threads.
  */
@@ -53,6 +55,7 @@ export function createWorkerPool<Job, Result>(moduleUrl: URL, options: WorkerPoo
   let nextId = 1;
   let closed = false;
   let alive = size;
+  const typescript = moduleUrl.pathname.endsWith('.ts');
 
   const dispatch = (): void => {
     while (idle.length > 0 && queue.length > 0) {
@@ -64,7 +67,7 @@ export function createWorkerPool<Job, Result>(moduleUrl: URL, options: WorkerPoo
   };
 
   for (let i = 0; i < size; i++) {
-    const worker = new Worker(bootstrapUrl, { workerData: { moduleUrl: moduleUrl.href } });
+    const worker = typescript ? new Worker(bootstrapUrl, { workerData: { moduleUrl: moduleUrl.href } }) : new Worker(moduleUrl);
     worker.on('message', (reply: WorkerReply<Result>) => {
       const item = inFlight.get(worker);
       inFlight.delete(worker);

@@ -2,8 +2,8 @@
 export interface BenchRow {
   suite: string;
   case: string;
-  /** Median wall time of one run, milliseconds. */
-  median_ms: number;
+  /** Median wall time of one run, milliseconds (absent for a row that measures a size). */
+  median_ms?: number;
   /** How many timed runs the median is over. */
   runs: number;
   /** Free-form extra figures: ratios against a baseline in the same run, solve counts, sizes… */

@@ -22,9 +22,9 @@ if (json) {
   const table = [['suite', 'case', 'median ms', 'runs', 'detail']];
   for (const row of rows) {
     const detail = Object.entries(row.detail ?? {})
-      .map(([k, v]) => `${k}=${typeof v === 'number' ? +v.toPrecision(4) : v}`)
+      .map(([k, v]) => `${k}=${typeof v === 'number' && !Number.isInteger(v) ? +v.toPrecision(4) : v}`)
       .join(' ');
-    table.push([row.suite, row.case, row.median_ms.toPrecision(4), String(row.runs), detail]);
+    table.push([row.suite, row.case, row.median_ms === undefined ? '–' : row.median_ms.toPrecision(4), String(row.runs), detail]);
   }
   const widths = table[0]!.map((_, i) => Math.max(...table.map((r) => r[i]!.length)));
   for (const r of table) process.stdout.write(`${r.map((c, i) => c.padEnd(widths[i]!)).join('  ').trimEnd()}\n`);

@@ -1,10 +1,12 @@
 // Shared set-up for browser tests: serve the workbench with Vite on a free port and drive
 // Debian's Chromium through playwright-core (npm cannot download browsers on this machine;
 // test/browser/ensure-chromium.sh installs the Debian package, and .ci/run calls it).
-import { existsSync, mkdirSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, statSync } from 'node:fs';
+import { createServer as createHttpServer } from 'node:http';
+import { tmpdir } from 'node:os';
+import { extname, join, resolve, sep } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type LaunchOptions, type Page } from 'playwright-core';
-import { createServer, type ViteDevServer } from 'vite';
+import { build, createServer, type InlineConfig, type ViteDevServer } from 'vite';
 
 /** Where browser tests save screenshots and other artefacts (git-ignored). */
 export const artifactDir = resolve(import.meta.dirname, '../artifacts');
@@ -13,7 +15,7 @@ export const artifactDir = resolve(import.meta.dirname, '../artifacts');
 export function chromiumPath(): string {
   const candidates = [process.env.CHROMIUM_PATH, '/usr/bin/chromium', '/usr/bin/chromium-browser'].filter(Boolean) as string[];
   const found = candidates.find((p) => existsSync(p));
-  if (!found) throw new Error('Chromium not found: run `npm run setup:browser` (installs Debian\'s chromium package)');
+  if (!found) throw new Error('Chromium not found: `npm test` installs Debian\'s chromium package first (test/browser/ensure-chromium.sh); run `npm run setup:browser` to do only that');
   return found;
 }
 
@@ -45,6 +47,86 @@ export async function startWorkbench(): Promise<{ server: ViteDevServer; url: st
   const address = server.httpServer?.address();
   if (!address || typeof address === 'string') throw new Error('vite did not report a port');
   return { server, url: `http://127.0.0.1:${address.port}/` };
+}
+
+/**
+ * Builds the workbench as `npm start` serves it (vite build, service worker included) into a new
+ * temporary folder and returns its path. `overrides` are merged over vite.config.ts (e.g. a
+ * different `define` to make a second, newer version).
+ */
+export async function buildWorkbench(overrides: InlineConfig = {}): Promise<string> {
+  const outDir = mkdtempSync(join(tmpdir(), 'barwright-built-'));
+  // vitest runs with NODE_ENV=test, and Vite builds for the NODE_ENV it finds (development
+  // libraries, import.meta.env.PROD false: no service worker). Build as `npm start` does.
+  const nodeEnv = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({
+      configFile: resolve(import.meta.dirname, '../../vite.config.ts'),
+      logLevel: 'error',
+      ...overrides,
+      build: { outDir, emptyOutDir: true, ...overrides.build },
+    });
+  } finally {
+    if (nodeEnv === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = nodeEnv;
+  }
+  return outDir;
+}
+
+const contentTypes: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.json': 'application/json',
+  '.webmanifest': 'application/manifest+json',
+  '.svg': 'image/svg+xml',
+  '.png': 'image/png',
+};
+
+/** A static server of a built workbench folder; see serveBuiltWorkbench. */
+export interface BuiltWorkbenchServer {
+  url: string;
+  /** Requests answered so far (path of each). */
+  requests: string[];
+  /** Serves another folder from now on, at the same address (a new version deployed). */
+  serve(folder: string): void;
+  /** Stops listening: from then on the address refuses connections, as with no network. */
+  close(): Promise<void>;
+}
+
+/**
+ * Serves a built workbench folder on 127.0.0.1 (a free port) like a plain static host: files as
+ * they are, `/` as index.html, `Cache-Control: no-cache` so the browser asks again each time.
+ */
+export async function serveBuiltWorkbench(folder: string): Promise<BuiltWorkbenchServer> {
+  let root = folder;
+  const requests: string[] = [];
+  const server = createHttpServer((request, response) => {
+    const path = decodeURIComponent(new URL(request.url ?? '/', 'http://localhost').pathname);
+    requests.push(path);
+    const file = resolve(root, `.${path.endsWith('/') ? `${path}index.html` : path}`);
+    if (!file.startsWith(root + sep) || !existsSync(file) || !statSync(file).isFile()) {
+      response.writeHead(404, { 'Content-Type': 'text/plain' }).end('not found');
+      return;
+    }
+    response.writeHead(200, { 'Content-Type': contentTypes[extname(file)] ?? 'application/octet-stream', 'Cache-Control': 'no-cache' }).end(readFileSync(file));
+  });
+  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
+  const address = server.address();
+  if (!address || typeof address === 'string') throw new Error('the static server did not report a port');
+  let closed = false;
+  return {
+    url: `http://127.0.0.1:${address.port}/`,
+    requests,
+    serve: (next) => void (root = next),
+    close: () => {
+      if (closed) return Promise.resolve();
+      closed = true;
+      server.closeAllConnections();
+      return new Promise<void>((done, fail) => server.close((error) => (error ? fail(error) : done())));
+    },
+  };
 }
 
 /** Makes sure the artefact folder exists and returns a path inside it. */

@@ -12,13 +12,10 @@ import { NavigateEvent, ProjectEditEvent, type ViewName } from '../events.ts';
 import type { BwProjectMenu, ProjectCreateDetail, ProjectImportDetail } from './bw-project-menu.ts';
 import './bw-project-menu.ts';
 import './bw-status-strip.ts';
+import { SaveBeforeUpdateEvent } from '../offline/appUpdates.ts';
+import { loadView, preloadViews } from '../viewModules.ts';
 import './bw-keyboard-view.ts';
-import './bw-shape-view.ts';
-import './bw-tuning-view.ts';
-import './bw-resonator-view.ts';
-import './bw-template-view.ts';
-import './bw-chime-view.ts';
-import './bw-plan-print-view.ts';
+import './bw-update-notice.ts';
 
 /** Loads the demo project of the invented workshop (bundled with the app). */
 async function loadDemo(): Promise<unknown> {
@@ -227,6 +224,12 @@ export class BwApp extends LitElement {
       this.navigate(navigate.view, navigate.barId ?? this.route.barId);
     });
     this.addEventListener('bar-pick', (event) => this.navigate(this.route.view, (event as CustomEvent<{ barId: string }>).detail.barId));
+    // "Reload to update" (bw-update-notice): every change stored first, or no reload.
+    this.addEventListener('save-before-update', (event) => {
+      const keeper = this.keeper.keeper;
+      (event as SaveBeforeUpdateEvent).saved = keeper.flush().then(() => !keeper.state.unsaved);
+    });
+    preloadViews();
   }
 
   override disconnectedCallback(): void {
@@ -355,6 +358,8 @@ export class BwApp extends LitElement {
     if (!project && this.keeper.state.noProject) return this.renderWelcome();
     if (!project) return html`<p role="status">Opening the workbench…</p>`;
     const barId = this.barIdFor();
+    // Views other than the keyboard overview come as their own chunks (viewModules.ts).
+    void loadView(this.route.view);
     switch (this.route.view) {
       case 'keyboard':
         return html`<bw-keyboard-view .project=${project}></bw-keyboard-view>`;
@@ -411,6 +416,7 @@ export class BwApp extends LitElement {
         </div>
       </header>
       ${this.renderBanner()}
+      <bw-update-notice></bw-update-notice>
       <main>${this.renderView()}</main>`;
   }
 }

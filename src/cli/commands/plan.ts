@@ -2,7 +2,7 @@ import { availableParallelism } from 'node:os';
 import { mkdir, readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { type StoredKeyboardBar, type KeyboardTask, type KeyboardTaskResult, keyboardBarTemplates, keyboardStationTables, keyboardCutListCsv, planKeyboard, type KeyboardPlan, signedNumber } from '../../instrument/index.ts';
-import { createWorkerPool } from '../../instrument/index.node.ts';
+import { createWorkerPool, keyboardBarWorkerUrl } from '../../instrument/index.node.ts';
 import { parseKeyboardFile, InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
 
@@ -68,7 +68,7 @@ export const planCommand: Command = {
     const file = parseKeyboardFile(await readJsonFile(path, io), path);
     const workers = numberOption(values.workers, 'workers', (n) => (Number.isInteger(n) && n >= 1 && n <= 16 ? null : 'must be a whole number from 1 to 16')) ?? Math.min(4, availableParallelism());
     const previous = values.out !== undefined && !values.fresh ? await previousPlan(values.out) : undefined;
-    const pool = createWorkerPool<KeyboardTask, KeyboardTaskResult>(new URL('../../instrument/keyboardBarWorker.ts', import.meta.url), { size: workers });
+    const pool = createWorkerPool<KeyboardTask, KeyboardTaskResult>(keyboardBarWorkerUrl, { size: workers });
     const controller = new AbortController();
     const stop = (): void => controller.abort();
     process.once('SIGINT', stop);
