@@ -86,16 +86,22 @@ export class BwProjectMenu extends LitElement {
       }
       .field {
         display: grid;
+        grid-template-columns: minmax(0, 1fr);
         gap: 0.15rem;
+        min-width: 0;
       }
       .field input,
       .field select {
         width: 100%;
+        min-width: 0;
       }
       .pair {
         display: grid;
-        grid-template-columns: 1fr 1fr;
+        grid-template-columns: minmax(0, 1fr) minmax(0, 1fr);
         gap: 0.5rem;
+      }
+      fieldset {
+        min-width: 0;
       }
       .buttons {
         display: flex;
