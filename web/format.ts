@@ -71,8 +71,19 @@ export function formatRatios(ratios: readonly number[]): string {
 
 /** Plain name of a bar state. */
 export function stateName(state: 'not-started' | 'rough' | 'tuning' | 'done'): string {
-  return { 'not-started': 'not started', rough: 'rough', tuning: 'tuning', done: 'done' }[state];
+  return { 'not-started': 'not started', rough: 'rough-cut', tuning: 'tuning', done: 'done' }[state];
 }
+
+/** The shape beside each bar state, so states read without colour. */
+export const stateMarks: Readonly<Record<'not-started' | 'rough' | 'tuning' | 'done', string>> = { 'not-started': '○', rough: '◔', tuning: '◑', done: '✔' };
+
+/** What each bar state means, for the legend and the hover text. */
+export const stateMeanings: Readonly<Record<'not-started' | 'rough' | 'tuning' | 'done', string>> = {
+  'not-started': 'the blank as cut to length; no undercut yet',
+  rough: 'undercut roughly (a plan used or a cut drawn), no round measured yet',
+  tuning: 'rounds of strike, measure and cut under way',
+  done: 'marked done: every partial within its tolerance',
+};
 
 /** Partial names in trade words: "Fundamental", "Partial 2", … (index from 0). */
 export function partialName(index: number): string {

@@ -1,14 +1,12 @@
 import type { Material } from '../material/Material.ts';
-
-/** Above this Young's modulus (Pa) a bar is taken to be metal for the cautions (woods: 8–25 GPa). */
-const metalModulus = 40e9;
+import { materialFamily } from '../material/materialFamily.ts';
 
 /**
  * The short cautions printed with every cutting plan (brief §4): power tools, dust (or, for metal,
  * burrs and cutting fluids), restricted timber, and that predictions are estimates. Plain strings.
  */
 export function designCautions(material: Material): string[] {
-  const metal = material.youngModulus > metalModulus;
+  const metal = materialFamily(material) === 'metal';
   return [
     'Power tools (band saw, drum or belt sander, grinder, router): use the guards, eye and hearing protection, keep hands clear of blades and follow the tool maker’s instructions.',
     metal

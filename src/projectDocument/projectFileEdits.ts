@@ -49,13 +49,6 @@ export function updateRegister(project: ProjectFile, registerId: string, change:
   return syncSessionTargets({ ...project, instrument: { ...project.instrument, registers } });
 }
 
-/** Renames the project. */
-export function renameProject(project: ProjectFile, name: string): ProjectFile {
-  const trimmed = name.trim();
-  if (trimmed === '') throw new InputError('project', 'name', 'must not be empty');
-  return { ...project, name: trimmed.slice(0, 200) };
-}
-
 /** Thickness (mm) of a bar at a position (mm): its profile interpolated, or the blank's thickness. */
 export function thicknessAtMm(bar: BarFile, positionMm: number): number {
   if (bar.section.shape !== 'rect') throw new InputError('shape', 'section', 'only a rectangular bar has a thickness profile');

@@ -160,6 +160,7 @@ export const projectFileSchema = z
       registers: z.array(registerSchema).min(1, { error: 'needs at least one register' }),
       air_temperature_c: z.number({ error: 'must be a number (°C)' }).refine((v) => v >= -30 && v <= 60, { error: 'must lie within −30 to 60 °C' }),
       resonator_end: z.enum(['unflanged', 'flanged'], { error: 'must be "unflanged" or "flanged"' }),
+      resonator_max_length_mm: z.number({ error: 'must be a number (mm)' }).refine((v) => v >= 50 && v <= 3000, { error: 'must lie within 50–3000 mm' }).optional(),
     }),
     bars: z.array(barSchema, { error: 'must be a list of bars' }),
     keyboard_plan: keyboardPlanRecordSchema.optional(),

@@ -107,6 +107,8 @@ export interface Instrument {
   air_temperature_c: number;
   /** Resonator open end: unflanged (plain tube) or flanged (end correction 0.6133 r or 0.8216 r). */
   resonator_end: 'unflanged' | 'flanged';
+  /** The longest resonator tube the frame takes, mm (absent: no limit set). */
+  resonator_max_length_mm?: number;
 }
 
 /** The project file, current version. */

@@ -4,4 +4,5 @@ export * from './endCorrection.ts';
 export * from './closedTube.ts';
 export * from './closedTubeResonator.ts';
 export * from './calibrateEndCorrection.ts';
+export * from './tubePracticality.ts';
 export * from './tubeListCsv.ts';

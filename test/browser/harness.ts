@@ -180,3 +180,33 @@ export async function auditControls(page: Page, alsoSized: readonly string[] = [
     return { unlabelled, small };
   }, [...alsoSized]);
 }
+
+/** RFC 4180 CSV (quoted fields, doubled quotes, CRLF) into rows of cells. */
+export function parseCsv(text: string): string[][] {
+  const rows: string[][] = [];
+  let row: string[] = [];
+  let cell = '';
+  let quoted = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i]!;
+    if (quoted) {
+      if (c === '"' && text[i + 1] === '"') {
+        cell += '"';
+        i++;
+      } else if (c === '"') quoted = false;
+      else cell += c;
+    } else if (c === '"') quoted = true;
+    else if (c === ',') {
+      row.push(cell);
+      cell = '';
+    } else if (c === '\r' && text[i + 1] === '\n') {
+      row.push(cell);
+      rows.push(row);
+      row = [];
+      cell = '';
+      i++;
+    } else cell += c;
+  }
+  if (cell !== '' || row.length > 0) rows.push([...row, cell]);
+  return rows;
+}

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
 import { chimeForNote, keyboardCutListColumns, noteToHz } from '../../src/index.ts';
-import { artifactPath, auditControls as auditPageControls, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, auditControls as auditPageControls, freshPage as openFreshPage, launchBrowser, parseCsv, startWorkbench } from './harness.ts';
 
 let server: ViteDevServer;
 let baseUrl: string;
@@ -39,36 +39,6 @@ async function openView(page: Page, hash: string): Promise<void> {
 
 /** The touch-target audit here also covers disclosure summaries (the plan's engineering detail). */
 const auditControls = (page: Page) => auditPageControls(page, ['summary']);
-
-/** RFC 4180 CSV (quoted fields, doubled quotes, CRLF) into rows of cells. */
-function parseCsv(text: string): string[][] {
-  const rows: string[][] = [];
-  let row: string[] = [];
-  let cell = '';
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const c = text[i]!;
-    if (quoted) {
-      if (c === '"' && text[i + 1] === '"') {
-        cell += '"';
-        i++;
-      } else if (c === '"') quoted = false;
-      else cell += c;
-    } else if (c === '"') quoted = true;
-    else if (c === ',') {
-      row.push(cell);
-      cell = '';
-    } else if (c === '\r' && text[i + 1] === '\n') {
-      row.push(cell);
-      rows.push(row);
-      row = [];
-      cell = '';
-      i++;
-    } else cell += c;
-  }
-  if (cell !== '' || row.length > 0) rows.push([...row, cell]);
-  return rows;
-}
 
 /** The range planned in the test: 12 bars over two of the demo project's blank sections (C4 52 × 21, A4 46 × 20). */
 const planNotes = ['C4', 'C#4', 'D4', 'D#4', 'E4', 'F4', 'F#4', 'G4', 'G#4', 'A4', 'A#4', 'B4'];
@@ -188,7 +158,7 @@ describe('the whole instrument in the workbench', () => {
     expect(await page.locator('[data-testid="plan-table"] tr[data-note="C4"]').innerText()).toMatch(/328 × 52 × 21/);
 
     // The print view: one sheet per planned bar, each SVG at true scale in mm.
-    await page.getByRole('button', { name: 'Print the templates (1:1)' }).click();
+    await page.getByRole('button', { name: 'Templates of the plan (1:1)…' }).click();
     const sheets = page.locator('[data-testid="print-sheet"]');
     await expect.poll(() => sheets.count()).toBe(12);
     for (let i = 0; i < 12; i++) {

@@ -152,7 +152,7 @@ describe('tube list as CSV', () => {
     );
     const csv = tubeListCsv(rows, 20);
     const lines = csv.split('\r\n');
-    expect(lines[0]).toBe('note,target_hz,inner_diameter_mm,length_mm,end_correction_mm,speed_of_sound_m_s,temp_c,resonance_1_hz,resonance_3_hz,resonance_5_hz,reinforces_partials,cents_per_c');
+    expect(lines[0]).toBe('note,target_hz,inner_diameter_mm,length_mm,end_correction_mm,speed_of_sound_m_s,temp_c,resonance_1_hz,resonance_3_hz,resonance_5_hz,reinforces_partials,cents_per_c,warnings');
     expect(lines).toHaveLength(4);
     expect(lines[3]).toBe('');
     const first = lines[1]!.split(',');

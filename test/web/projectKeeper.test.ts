@@ -4,7 +4,7 @@ import 'fake-indexeddb/auto';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { recordStep, renameProject, type ProjectFile } from '../../src/index.ts';
+import { emptyProject, recordStep, renameProject, type ProjectFile } from '../../src/index.ts';
 import { ProjectDatabase, SaveConflict } from '../../web/storage/projectDatabase.ts';
 import { ProjectKeeper } from '../../web/storage/ProjectKeeper.ts';
 
@@ -118,7 +118,8 @@ describe('project storage', () => {
     const keeper = tab(name);
     await keeper.start(loadDemo);
     const exported = keeper.exportText();
-    const outcome = await keeper.importText(exported, 'copy.project.json');
+    // Same name as the stored demo: kept beside it under a free name.
+    const outcome = await keeper.importText(exported, 'copy.project.json', 'copy');
     expect(outcome.ok).toBe(true);
     expect(keeper.state.projects).toHaveLength(2);
     expect(keeper.state.project!.bars).toEqual(JSON.parse(exported).bars);
@@ -140,5 +141,84 @@ describe('project storage', () => {
     const stored = await database.load(id);
     expect(Number.isFinite(stored!.bars[0]!.session.steps[0]!.measured_hz[0])).toBe(true);
     database.close();
+  });
+});
+
+describe('projects of one’s own', () => {
+  const emptyShop = (id: string, name: string): ProjectFile => emptyProject({ id, name, kind: 'wooden-keyboard', lowestNote: 'C4', highestNote: 'C6', a4Hz: 442 });
+
+  it('starts an empty project beside the demo, refusing a name already stored', async () => {
+    const keeper = tab(freshName());
+    await keeper.start(loadDemo);
+    const demoName = keeper.state.project!.name;
+    const refused = await keeper.create(emptyShop('p-1', ` ${demoName.toUpperCase()} `));
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.error.rule).toMatch(/already the name of another project/);
+    expect(keeper.state.projects).toHaveLength(1);
+    expect((await keeper.create(emptyShop('p-1', 'Shop'))).ok).toBe(true);
+    expect(keeper.state.project!.name).toBe('Shop');
+    expect(keeper.state.project!.bars).toEqual([]);
+    expect(keeper.state.projects.map((summary) => summary.name).sort()).toEqual([demoName, 'Shop'].sort());
+  });
+
+  it('renames and copies the open project under names no other project has', async () => {
+    const keeper = tab(freshName());
+    await keeper.start(loadDemo);
+    const demoName = keeper.state.project!.name;
+    await keeper.create(emptyShop('p-1', 'Shop'));
+    const clash = keeper.rename(demoName);
+    expect(clash.ok).toBe(false);
+    expect(keeper.rename('Shop two').ok).toBe(true);
+    await until(() => !keeper.state.unsaved);
+    await keeper.duplicate();
+    expect(keeper.state.project!.name).toBe('Shop two (copy)');
+    // The copy is open now; copying "Shop two" again needs the next free name.
+    await keeper.open(keeper.state.projects.find((summary) => summary.name === 'Shop two')!.id);
+    await keeper.duplicate();
+    expect(keeper.state.projects.map((summary) => summary.name).sort()).toEqual([demoName, 'Shop two', 'Shop two (copy)', 'Shop two (copy) (2)'].sort());
+  });
+
+  it('a deleted project goes to the bin: restorable after a reload, under a free name; with none left nothing is added back by itself', async () => {
+    const name = freshName();
+    const keeper = tab(name);
+    await keeper.start(loadDemo);
+    const demo = keeper.state.project!;
+    await keeper.deleteProject(demo.id);
+    expect(keeper.state.project).toBeNull();
+    expect(keeper.state.noProject).toBe(true);
+    expect(keeper.state.lastDeleted).toEqual({ id: demo.id, name: demo.name });
+    expect(keeper.state.binned.map((entry) => entry.name)).toEqual([demo.name]);
+    await keeper.close();
+
+    const again = tab(name);
+    await again.start(async () => {
+      throw new Error('the demo must not come back by itself once the maker deleted it');
+    });
+    expect(again.state.noProject).toBe(true);
+    expect(again.state.binned).toHaveLength(1);
+    await again.addDemo(loadDemo);
+    // The demo's name is taken again, so the restored one comes back under a free name.
+    await again.restore(demo.id);
+    expect(again.state.project!.bars).toEqual(demo.bars);
+    expect(again.state.project!.name).toBe(`${demo.name} (2)`);
+    expect(again.state.binned).toEqual([]);
+    expect(again.state.projects).toHaveLength(2);
+  });
+
+  it('an import with a stored name waits for a choice: keep both, or replace (the replaced one in the bin)', async () => {
+    const keeper = tab(freshName());
+    await keeper.start(loadDemo);
+    const exported = keeper.exportText();
+    const name = keeper.state.project!.name;
+    const waiting = await keeper.importText(exported, 'again.project.json');
+    expect(waiting.ok).toBe(false);
+    expect('nameTaken' in waiting && waiting.nameTaken).toMatchObject({ name, suggested: `${name} (2)` });
+    expect(keeper.state.projects).toHaveLength(1);
+    expect((await keeper.importText(exported, 'again.project.json', 'copy')).ok).toBe(true);
+    expect(keeper.state.projects.map((summary) => summary.name).sort()).toEqual([name, `${name} (2)`].sort());
+    expect((await keeper.importText(exported, 'again.project.json', 'replace')).ok).toBe(true);
+    expect(keeper.state.projects).toHaveLength(2);
+    expect(keeper.state.binned.map((entry) => entry.name)).toEqual([name]);
+    expect(keeper.state.project!.name).toBe(name);
   });
 });

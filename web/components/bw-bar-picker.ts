@@ -2,7 +2,7 @@
 // buttons (large targets). Fires `bar-pick` with the chosen bar's id.
 import { LitElement, html, css } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { ProjectBar } from '../../src/index.ts';
+import { barName, type ProjectBar } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { stateName } from '../format.ts';
 
@@ -49,7 +49,7 @@ export class BwBarPicker extends LitElement {
         <label for="bar">Bar</label>
         <select id="bar" @change=${(event: Event) => this.pick((event.target as HTMLSelectElement).value)}>
           ${this.bars.map(
-            (bar) => html`<option value=${bar.id} ?selected=${bar.id === this.barId}>${bar.note}${bar.register === 'chimes' || bar.current.section.shape !== 'rect' ? ' (chime)' : ''} — ${stateName(bar.state)}</option>`,
+            (bar) => html`<option value=${bar.id} ?selected=${bar.id === this.barId}>${bar.note}${barName(bar) !== bar.note ? ` “${barName(bar)}”` : ''}${bar.current.section.shape === 'tube' ? ' (tube)' : bar.current.section.shape === 'round' ? ' (rod)' : ''} — ${stateName(bar.state)}</option>`,
           )}
         </select>
       </div>

@@ -1,8 +1,8 @@
-// The blank and its timber: length and section with units, material values or a preset. Each
+// The blank and its timber or metal: length and section with units, material values or a preset. Each
 // change is sent up as a project edit; a rule the library refuses is shown beside its field.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { materialPresets, setBarBlank, type BarFile } from '../../src/index.ts';
+import { barMaterialFamily, materialPresets, setBarBlank, type BarFile } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { sendEdit } from '../events.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
@@ -102,6 +102,7 @@ export class BwBlankForm extends LitElement {
     if (!blank) return nothing;
     const section = blank.section;
     const material = 'preset' in blank.material ? null : (blank.material as Explicit);
+    const metal = barMaterialFamily(blank) === 'metal';
     return html`<fieldset>
         <legend>Blank</legend>
         ${this.field('Length', 'mm', 'length_mm', blank.length_mm)}
@@ -114,7 +115,7 @@ export class BwBlankForm extends LitElement {
         <p class="note wide">${this.measured ? 'Rounds are recorded for this bar, so changing the blank corrects the record only; the present shape stays as measured.' : 'Until the first round is recorded the present shape follows the blank.'}</p>
       </fieldset>
       <fieldset>
-        <legend>Timber or metal</legend>
+        <legend>${metal ? 'Metal' : 'Timber'}</legend>
         <div class="select-field wide">
           <label for="preset">Start from a preset</label>
           <select id="preset" @change=${this.onPreset}>
@@ -123,11 +124,11 @@ export class BwBlankForm extends LitElement {
           </select>
         </div>
         ${material
-          ? html`${this.field('Stiffness along the grain (E)', 'GPa', 'material.E_GPa', material.E_GPa)}
+          ? html`${this.field(metal ? 'Stiffness (E)' : 'Stiffness along the grain (E)', 'GPa', 'material.E_GPa', material.E_GPa)}
             ${material.G_GPa !== undefined ? this.field('Shear stiffness (G)', 'GPa', 'material.G_GPa', material.G_GPa) : nothing}
             ${this.field('Density', 'kg/m³', 'material.density_kg_m3', material.density_kg_m3)}
             ${this.errors['material'] ? html`<p class="problem wide" role="alert">${this.errors['material']}</p>` : nothing}
-            <p class="note wide">A starting guess: each blank differs, and tuning rounds learn the real values.</p>`
+            <p class="note wide">${metal ? 'Handbook values: each alloy and temper differs a little, and tuning rounds learn the real values.' : 'A starting guess: each blank differs, and tuning rounds learn the real values.'}</p>`
           : html`<p class="note wide">Uses the preset “${(blank.material as { preset: string }).preset}”.</p>`}
       </fieldset>`;
   }

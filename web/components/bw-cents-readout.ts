@@ -76,12 +76,14 @@ export class BwCentsReadout extends LitElement {
   @property({ type: Number }) hz: number | null = null;
   @property({ type: Number, attribute: 'target-hz' }) targetHz: number | null = null;
   @property({ type: Number }) tolerance: number | null = null;
+  /** What to say while there is no value (a prediction still being worked out is not a missing reading). */
+  @property({ attribute: 'empty-words' }) emptyWords = 'no reading';
   /** Smaller numerals for lists. */
   @property({ type: Boolean, reflect: true }) compact = false;
 
   protected override render() {
     const kind = verdictClass(this.verdict);
-    const words = this.verdict ?? 'no reading';
+    const words = this.verdict ?? this.emptyWords;
     return html`<div class="card ${kind}" role="group" aria-label="${this.label}: ${formatCents(this.cents)} cents, ${words}">
       <div class="label">${this.label}</div>
       <div class="value ${kind}">${formatCents(this.cents)}<span class="unit">cents</span></div>

@@ -87,7 +87,9 @@ export class BwKeyboardPlan extends LitElement {
   private readonly run = new KeyboardPlanRunController(this);
 
   protected override willUpdate(changed: Map<string, unknown>): void {
-    if (changed.has('project') && this.project && !this.lowest) {
+    // The range to plan follows the project opened (another project, a new one), not the one before.
+    const previous = changed.get('project') as ProjectFile | null | undefined;
+    if (changed.has('project') && this.project && (!this.lowest || (previous && previous.id !== this.project.id))) {
       const range = this.project.keyboard_plan?.keyboard.range;
       this.lowest = range?.lowest ?? this.project.instrument.lowest_note;
       this.highest = range?.highest ?? this.project.instrument.highest_note;
@@ -166,7 +168,7 @@ export class BwKeyboardPlan extends LitElement {
             </p>
             <div class="actions">
               <button @click=${() => this.downloadCutList()} ?disabled=${summary.designed === 0} data-testid="cut-list-download">Download the cut list (CSV)</button>
-              <button @click=${() => this.dispatchEvent(new NavigateEvent('plan-print'))} ?disabled=${summary.designed === 0}>Print the templates (1:1)</button>
+              <button @click=${() => this.dispatchEvent(new NavigateEvent('plan-print'))} ?disabled=${summary.designed === 0}>Templates of the plan (1:1)…</button>
             </div>
             <bw-cautions></bw-cautions>
             <bw-plan-table .plan=${record.plan}></bw-plan-table>`

@@ -1,21 +1,19 @@
-// The keyboard overview: the instrument's settings (range, A4, timber, target ratios per
-// register) and every bar's state at a glance with its partials' errors in cents — as last
-// heard when measured, otherwise as predicted for its present shape (solved in a worker, with
-// progress and cancel).
+// The keyboard overview: the instrument's settings (range, A4, timber or metal, target ratios per
+// register), the whole-keyboard plan, and the bar list (bw-bar-list) with every bar's partials'
+// errors in cents — as last heard when measured, otherwise as predicted for its present shape
+// (solved in a worker here, with progress and cancel).
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { barTargetHz, checkA4, parseNote, comparePartials, lastMeasuredHz, parseRatioText, parseToleranceText, registerOf, stableHash, updateInstrument, updateRegister, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
+import { checkA4, materialFileFamily, parseRatioText, parseToleranceText, setInstrumentRange, stableHash, updateInstrument, updateRegister, type ProjectFile, type Register } from '../../src/index.ts';
 import { TaskController, workerJob } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
 import type { AnalyzeManyEntry } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
-import { NavigateEvent, sendEdit } from '../events.ts';
-import { formatCents, formatMm, formatWhen, partialName, stateName, verdictClass, verdictMark } from '../format.ts';
+import { sendEdit } from '../events.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
 import './bw-number-field.ts';
 import './bw-keyboard-plan.ts';
-
-const stateMarks: Record<ProjectBar['state'], string> = { 'not-started': '○', rough: '◔', tuning: '◑', done: '✔' };
+import './bw-bar-list.ts';
 
 /** `<bw-keyboard-view .project>` */
 @customElement('bw-keyboard-view')
@@ -46,40 +44,26 @@ export class BwKeyboardView extends LitElement {
       .registers input {
         width: 8rem;
       }
-      table.bars {
-        width: 100%;
-      }
-      table.bars td.note {
-        font-size: 1.3rem;
-        font-weight: 800;
-      }
-      .cents {
-        display: inline-block;
-        min-width: 5.4rem;
-        font-weight: 700;
-        font-variant-numeric: tabular-nums;
-      }
-      .source {
-        font-size: 0.8rem;
-        color: var(--bw-ink-muted);
-        display: block;
-      }
-      .state {
-        white-space: nowrap;
-        font-weight: 600;
-      }
-      .actions div {
-        display: flex;
-        gap: 0.4rem;
-        flex-wrap: wrap;
-      }
       .field-error {
         color: var(--bw-problem-ink);
         font-size: 0.85rem;
         display: block;
       }
-      progress {
-        width: 10rem;
+      .range input {
+        width: 5.5rem;
+      }
+      .settings + h3 {
+        margin-top: 1rem;
+      }
+      .hint {
+        display: block;
+        font-size: 0.85rem;
+        color: var(--bw-ink-muted);
+      }
+      .range .pair {
+        display: flex;
+        gap: 0.4rem;
+        align-items: center;
       }
     `,
   ];
@@ -89,13 +73,15 @@ export class BwKeyboardView extends LitElement {
   @state() private predictions = new Map<string, AnalyzeManyEntry>();
   @state() private registerErrors: Record<string, string> = {};
   @state() private a4Error = '';
+  @state() private rangeError = '';
   /** Predictions for every bar's present shape (new shapes restart it; kept until new ones arrive). */
   private readonly prediction = new TaskController<AnalyzeManyEntry[]>(this, { onResult: (entries) => void (this.predictions = new Map(entries.map((entry) => [entry.id, entry]))) });
   private lastKey = '';
 
   protected override willUpdate(changed: Map<string, unknown>): void {
     if (changed.has('project') && this.project) {
-      const key = JSON.stringify(this.project.bars.map((bar) => [bar.id, bar.current]));
+      // Order-free: moving a bar in the list does not ask for new predictions.
+      const key = JSON.stringify([...this.project.bars].sort((a, b) => a.id.localeCompare(b.id)).map((bar) => [bar.id, bar.current]));
       if (key !== this.lastKey) {
         this.lastKey = key;
         void this.predict();
@@ -106,7 +92,7 @@ export class BwKeyboardView extends LitElement {
   private predict(): void {
     const project = this.project;
     if (!project) return;
-    const payload = { bars: project.bars.map((bar) => ({ id: bar.id, bar: bar.current })), modes: 3 };
+    const payload = { bars: [...project.bars].sort((a, b) => a.id.localeCompare(b.id)).map((bar) => ({ id: bar.id, bar: bar.current })), modes: 3 };
     this.prediction.run({ subject: 'bars', key: stableHash(payload) }, workerJob(solver, 'analyzeMany', payload));
   }
 
@@ -143,46 +129,9 @@ export class BwKeyboardView extends LitElement {
     this.a4Error = outcome.ok ? '' : outcome.error.rule;
   }
 
-  private go(view: 'shape' | 'tuning', barId: string): void {
-    this.dispatchEvent(new NavigateEvent(view, barId));
-  }
-
-  private renderErrors(bar: ProjectBar) {
-    const project = this.project!;
-    const register = registerOf(project, bar);
-    const targets = barTargetHz(project, bar);
-    const measured = lastMeasuredHz(bar);
-    const prediction = this.predictions.get(bar.id);
-    const hz = measured ?? prediction?.analysis?.bending.map((mode) => mode.hz) ?? null;
-    if (!hz) return html`<span class="muted">${prediction?.error ?? (this.prediction.state('bars').running ? 'predicting…' : '–')}</span>`;
-    const standings = comparePartials(hz, targets, register.tolerance_cents);
-    const when = measured ? `heard ${formatWhen(bar.session.steps[bar.session.steps.length - 1]?.recorded_at)}` : 'predicted';
-    return html`${standings.map(
-        (standing, index) =>
-          html`<span class="cents ${verdictClass(standing.verdict)}" title=${`${partialName(index)}: ${standing.verdict ?? 'no reading'}`}
-            >${verdictMark(standing.verdict)} ${formatCents(standing.cents)}<span class="visually-hidden"> cents ${standing.verdict ?? ''}</span></span
-          >`,
-      )}<span class="source">${when}</span>`;
-  }
-
-  /** The bar's planned undercut in words: in tolerance, out of tolerance, or cannot be made (with the reason on hover). */
-  private planText(bar: ProjectBar) {
-    const design = bar.design;
-    if (!design) return html`<span class="muted">–</span>`;
-    const midi = parseNote(bar.note).midi;
-    const planned = Object.values(this.project!.keyboard_plan?.plan.bars ?? {}).find((entry) => entry.midi === midi && registerOf(this.project!, bar).family === 'keyboard');
-    const tolerance = registerOf(this.project!, bar).tolerance_cents;
-    const within = design.cents_error.every((c, k) => Math.abs(c) <= (tolerance[k] ?? tolerance[tolerance.length - 1] ?? 0));
-    const status = planned?.status ?? (design.feasible ? 'in-tolerance' : within ? 'infeasible' : 'out-of-tolerance');
-    const [mark, words] = status === 'infeasible' ? ['✕', 'cannot be made'] : status === 'in-tolerance' ? ['✔', 'in tolerance'] : ['!', 'out of tolerance'];
-    return html`<span class="state" data-plan-status=${status} title=${design.reason ?? ''}>${mark} ${words}</span>`;
-  }
-
-  private blankText(bar: ProjectBar): string {
-    const section = bar.blank.section;
-    if (section.shape === 'rect') return `${formatMm(bar.blank.length_mm, 0)} × ${formatMm(section.width_mm, 0)} × ${formatMm(section.thickness_mm, 0)}`;
-    if (section.shape === 'tube') return `${formatMm(bar.blank.length_mm, 1)}, tube ⌀${formatMm(section.outer_diameter_mm, 1)} × ${formatMm(section.wall_mm, 1)}`;
-    return `${formatMm(bar.blank.length_mm, 1)}, rod ⌀${formatMm(section.diameter_mm, 1)}`;
+  private editRange(lowest: string, highest: string): void {
+    const outcome = sendEdit(this, (project) => setInstrumentRange(project, lowest, highest));
+    this.rangeError = outcome.ok ? '' : outcome.error.rule;
   }
 
   protected override render() {
@@ -196,9 +145,19 @@ export class BwKeyboardView extends LitElement {
       <section class="panel" aria-labelledby="instrument-heading">
         <h2 id="instrument-heading">${instrument.name}</h2>
         <div class="settings">
-          <div class="fact"><span class="muted">Range</span><strong>${instrument.lowest_note} to ${instrument.highest_note}</strong></div>
+          <div class="fact range">
+            <span class="muted" id="range-label">Range</span>
+            <div class="pair" role="group" aria-labelledby="range-label">
+              <label class="visually-hidden" for="range-lowest">Lowest note</label>
+              <input id="range-lowest" autocomplete="off" .value=${instrument.lowest_note} aria-invalid=${this.rangeError ? 'true' : 'false'} @change=${(event: Event) => this.editRange((event.target as HTMLInputElement).value, instrument.highest_note)} />
+              <span>to</span>
+              <label class="visually-hidden" for="range-highest">Highest note</label>
+              <input id="range-highest" autocomplete="off" .value=${instrument.highest_note} aria-invalid=${this.rangeError ? 'true' : 'false'} @change=${(event: Event) => this.editRange(instrument.lowest_note, (event.target as HTMLInputElement).value)} />
+            </div>
+            ${this.rangeError ? html`<span class="field-error" role="alert" data-testid="range-error">✕ ${this.rangeError}</span>` : nothing}
+          </div>
           <bw-number-field label="A4 reference" unit="Hz" name="a4" .value=${instrument.a4_hz} .min=${300} .max=${600} step="0.5" error=${this.a4Error} @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.editA4(event.detail.value)}></bw-number-field>
-          <div class="fact"><span class="muted">Timber (starting guess)</span><strong>${'label' in material && material.label ? material.label : 'preset' in material ? material.preset : 'custom'}</strong></div>
+          <div class="fact"><span class="muted">${materialFileFamily(material) === 'metal' ? 'Metal' : 'Timber'} (starting guess)</span><strong>${'label' in material && material.label ? material.label : 'preset' in material ? material.preset : 'custom'}</strong></div>
         </div>
         <h3>Registers</h3>
         <div class="table-wrap registers">
@@ -211,7 +170,11 @@ export class BwKeyboardView extends LitElement {
                   <td>
                     <label class="visually-hidden" for=${`ratios-${register.id}`}>Target ratios of ${register.label}</label>
                     <input id=${`ratios-${register.id}`} .value=${register.ratios.join(' : ')} @change=${(event: Event) => this.editRatios(register, (event.target as HTMLInputElement).value)} aria-invalid=${this.registerErrors[`${register.id}.ratios`] ? 'true' : 'false'} />
-                    ${this.registerErrors[`${register.id}.ratios`] ? html`<span class="field-error" role="alert">✕ ${this.registerErrors[`${register.id}.ratios`]}</span>` : nothing}
+                    ${this.registerErrors[`${register.id}.ratios`]
+                      ? html`<span class="field-error" role="alert">✕ ${this.registerErrors[`${register.id}.ratios`]}</span>`
+                      : register.ratios.length === 1
+                        ? html`<span class="hint">fundamental only</span>`
+                        : nothing}
                   </td>
                   <td>
                     <label class="visually-hidden" for=${`tolerance-${register.id}`}>Tolerances of ${register.label} in cents</label>
@@ -226,40 +189,12 @@ export class BwKeyboardView extends LitElement {
         </div>
       </section>
       <bw-keyboard-plan .project=${project}></bw-keyboard-plan>
-      <section class="panel" aria-labelledby="bars-heading">
-        <div class="row" style="justify-content: space-between">
-          <h2 id="bars-heading">Bars</h2>
-          <div class="row" aria-live="polite">
-            ${predicting.running
-              ? html`<progress max=${progress.total} value=${progress.done} aria-label="Predicting partials"></progress><span>Predicting ${progress.done} of ${progress.total}</span><button @click=${() => this.prediction.cancel('bars')}>Cancel</button>`
-              : html`<span class="muted">${this.predictionNote()}</span>`}
-          </div>
-        </div>
-        <p class="muted">${project.bars.length} bars set up. Cents from target per partial (fundamental first): ▲ sharp · ▼ flat · ● in tune.</p>
-        <div class="table-wrap">
-          <table class="bars" data-testid="bar-list">
-            <thead>
-              <tr><th scope="col">Note</th><th scope="col">State</th><th scope="col">Blank (mm)</th><th scope="col">Partials (cents)</th><th scope="col">Plan</th><th scope="col" class="number">Rounds</th><th scope="col">Open</th></tr>
-            </thead>
-            <tbody>
-              ${project.bars.map(
-                (bar) => html`<tr data-bar=${bar.id}>
-                  <td class="note">${bar.note}<span class="source">${registerOf(project, bar).label}</span></td>
-                  <td class="state">${stateMarks[bar.state]} ${stateName(bar.state)}</td>
-                  <td>${this.blankText(bar)}</td>
-                  <td>${this.renderErrors(bar)}</td>
-                  <td>${this.planText(bar)}</td>
-                  <td class="number">${bar.session.steps.length}</td>
-                  <td class="actions"><div>
-                    <button @click=${() => this.go('shape', bar.id)} aria-label=${`Shape of ${bar.note}`}>Shape</button>
-                    <button class="primary" @click=${() => this.go('tuning', bar.id)} aria-label=${`Tune ${bar.note}`}>Tune</button>
-                  </div></td>
-                </tr>`,
-              )}
-            </tbody>
-          </table>
-        </div>
-      </section>
+      <bw-bar-list
+        .project=${project}
+        .predictions=${this.predictions}
+        .predicting=${{ running: predicting.running, progress, note: this.predictionNote() }}
+        @predictions-cancel=${() => this.prediction.cancel('bars')}
+      ></bw-bar-list>
     </div>`;
   }
 }

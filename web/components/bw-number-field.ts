@@ -1,5 +1,6 @@
 // A labelled number input with its unit, checked as typed; the rule broken is written next to
-// the field (never a NaN). Fires `value-commit` with a valid number on Enter or leaving the field.
+// the field with the allowed range (never a NaN). Fires `value-commit` with a valid number on
+// Enter or leaving the field, or `value-clear` when an optional field is emptied.
 import { LitElement, html, css } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { sharedStyles } from '../styles/sharedStyles.ts';
@@ -76,6 +77,8 @@ export class BwNumberField extends LitElement {
   /** Field name used in test ids and messages. */
   @property() name = '';
   @property({ type: Boolean }) disabled = false;
+  /** An empty field is allowed: it fires `value-clear` instead of asking for a number. */
+  @property({ type: Boolean }) optional = false;
 
   @state() private localError = '';
   @state() private draft: string | null = null;
@@ -88,16 +91,27 @@ export class BwNumberField extends LitElement {
     }
   }
 
-  /** Checks the typed text; returns the number or a rule in words. */
-  private check(text: string): { value: number } | { rule: string } {
+  /** The allowed range in words ("10–250 mm", "greater than 0 and at most 600 Hz"), or '' with no bounds. */
+  private rangeWords(): string {
+    const unit = this.unit ? ` ${this.unit}` : '';
+    if (this.min !== null && this.max !== null) return this.exclusiveMin ? `greater than ${this.min} and at most ${this.max}${unit}` : `${this.min}–${this.max}${unit}`;
+    if (this.min !== null) return `${this.exclusiveMin ? 'greater than' : 'at least'} ${this.min}${unit}`;
+    if (this.max !== null) return `at most ${this.max}${unit}`;
+    return '';
+  }
+
+  /** Checks the typed text; returns the number, null for an allowed empty field, or a rule in words (with the range). */
+  private check(text: string): { value: number | null } | { rule: string } {
     const trimmed = text.trim().replace(',', '.').replace('−', '-');
-    if (trimmed === '') return { rule: `${this.label} is needed` };
+    if (trimmed === '') return this.optional ? { value: null } : { rule: `${this.label} is needed` };
     const value = Number(trimmed);
     if (!Number.isFinite(value)) return { rule: `${this.label} must be a number${this.unit ? ` in ${this.unit}` : ''}` };
-    if (this.min !== null && (this.exclusiveMin ? value <= this.min : value < this.min)) {
-      return { rule: `${this.label} must be ${this.exclusiveMin ? 'greater than' : 'at least'} ${this.min}${this.unit ? ` ${this.unit}` : ''}` };
+    const below = this.min !== null && (this.exclusiveMin ? value <= this.min : value < this.min);
+    const above = this.max !== null && value > this.max;
+    if (below || above) {
+      const both = this.min !== null && this.max !== null;
+      return { rule: `${this.label} must ${both && !this.exclusiveMin ? 'lie within' : 'be'} ${this.rangeWords()}` };
     }
-    if (this.max !== null && value > this.max) return { rule: `${this.label} must be at most ${this.max}${this.unit ? ` ${this.unit}` : ''}` };
     return { value };
   }
 
@@ -118,6 +132,10 @@ export class BwNumberField extends LitElement {
     this.localError = '';
     if (result.value === this.value) {
       this.draft = null;
+      return;
+    }
+    if (result.value === null) {
+      this.dispatchEvent(new CustomEvent('value-clear', { bubbles: true, composed: true }));
       return;
     }
     this.dispatchEvent(new CustomEvent<ValueCommitDetail>('value-commit', { detail: { value: result.value }, bubbles: true, composed: true }));

@@ -124,7 +124,7 @@ export class BwPlanPrintView extends LitElement {
     const longest = Math.max(...sheets.map((sheet) => sheet.widthMm + 2 * marginMm));
     return html`<div class="controls screen-only">
         ${back}
-        <button class="primary" @click=${() => window.print()}>Print</button>
+        <button class="primary" @click=${() => window.print()}>Print every template</button>
         <span>${sheets.length} template${sheets.length === 1 ? '' : 's'}, one bar per page, at true scale (1:1).</span>
       </div>
       <p class="screen-only muted">

@@ -4,13 +4,13 @@
 // undercut planner. Engineering figures sit behind a disclosure.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { adoptDesign, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, stableHash, withStations, type BarFile, type BarState, type CutEffectMap, type DesignResult, type ModeResult, type ProjectBar, type ProjectFile } from '../../src/index.ts';
+import { adoptDesign, barMaterialFamily, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, stableHash, withStations, type BarFile, type BarState, type CutEffectMap, type DesignResult, type ModeResult, type ProjectBar, type ProjectFile } from '../../src/index.ts';
 import { TaskController, workerJob, type TaskBinding, type TaskProblem } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
 import type { AnalyzeResult, DesignPayload } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { sendEdit } from '../events.ts';
-import { formatCents, formatHz, formatMm, formatNumber, formatRatios, partialName, stateName } from '../format.ts';
+import { formatCents, formatHz, formatMm, formatNumber, formatRatios, partialName, stateMeanings, stateName } from '../format.ts';
 import type { ProfileChangeDetail } from './bw-profile-drawing.ts';
 import './bw-bar-picker.ts';
 import './bw-blank-form.ts';
@@ -266,6 +266,7 @@ export class BwShapeView extends LitElement {
             .hz=${standing.hz}
             .targetHz=${standing.targetHz}
             .tolerance=${standing.toleranceCents}
+            empty-words=${busy ? 'working out…' : 'no prediction'}
           ></bw-cents-readout>`,
         )}
       </div>
@@ -306,7 +307,7 @@ export class BwShapeView extends LitElement {
     const nodes = value.analysis.bending[0]?.nodes_mm ?? [];
     return html`<section class="panel">
       <h3>How the bar moves</h3>
-      <p class="muted">Cord holes go at the fundamental's nodes: ${nodes.map((x) => `${formatMm(x)} mm`).join(' and ')} from the left end.</p>
+      <p class="muted">${this.bar?.current.section.shape === 'rect' ? 'Cord holes go at' : 'Hang or support it at'} the fundamental's nodes: ${nodes.map((x) => `${formatMm(x)} mm`).join(' and ')} from the left end.</p>
       <bw-mode-chart .modes=${this.shapedModes} length=${this.shape?.length_mm ?? 0}></bw-mode-chart>
     </section>`;
   }
@@ -347,7 +348,7 @@ export class BwShapeView extends LitElement {
         ? html`<p><strong>${design.feasible ? 'A plan reaches the targets.' : 'No plan reaches all targets;'}</strong> ${design.reason ?? ''}</p>
             <p>Predicted: ${design.cents_error.map((value, index) => html`${partialName(index)} ${formatCents(value)} cents${index < design.cents_error.length - 1 ? ' · ' : ''}`)}</p>
             <bw-profile-drawing .bar=${design.bar}></bw-profile-drawing>
-            <bw-cautions></bw-cautions>
+            <bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>
             <button @click=${this.adoptPlan}>Use the plan as the present shape</button>`
         : nothing}
     </section>`;
@@ -361,7 +362,7 @@ export class BwShapeView extends LitElement {
       <summary>Engineering detail</summary>
       ${value
         ? html`<p>Beam theory: ${value.analysis.theory}; ${value.analysis.mesh?.elements ?? '–'} finite elements; solver time ${formatNumber(workerMs, 1)} ms; last shape-to-partials update ${formatNumber(this.lastUpdateMs, 1)} ms.</p>
-            ${material ? html`<p>Material model: E = ${formatNumber(material.E_GPa, 2)} GPa, G = ${material.G_GPa !== undefined ? `${formatNumber(material.G_GPa, 3)} GPa` : 'from Poisson’s ratio'}, density ${formatNumber(material.density_kg_m3, 0)} kg/m³ (shear-soft timber lowers the upper partials).</p>` : nothing}
+            ${material ? html`<p>Material model: E = ${formatNumber(material.E_GPa, 2)} GPa, G = ${material.G_GPa !== undefined ? `${formatNumber(material.G_GPa, 3)} GPa` : 'from Poisson’s ratio'}, density ${formatNumber(material.density_kg_m3, 0)} kg/m³${shape && barMaterialFamily(shape) === 'metal' ? ' (metal is stiff in shear, E/G ≈ 2.6: shear barely moves its partials)' : ' (shear-soft timber, E/G of 10–20, lowers the upper partials)'}.</p>` : nothing}
             <table>
               <caption class="visually-hidden">Frequencies of each vibration family</caption>
               <thead><tr><th>Family</th><th class="number">Mode</th><th class="number">Hz</th></tr></thead>
@@ -386,9 +387,10 @@ export class BwShapeView extends LitElement {
         <bw-bar-picker .bars=${project.bars} bar-id=${bar.id}></bw-bar-picker>
         <div class="state-field">
           <label for="state">State</label>
-          <select id="state" @change=${this.setState}>
-            ${(['not-started', 'rough', 'tuning', 'done'] as const).map((state) => html`<option value=${state} ?selected=${state === bar.state}>${stateName(state)}</option>`)}
+          <select id="state" @change=${this.setState} aria-describedby="state-meaning" title=${stateMeanings[bar.state]}>
+            ${(['not-started', 'rough', 'tuning', 'done'] as const).map((state) => html`<option value=${state} ?selected=${state === bar.state} title=${stateMeanings[state]}>${stateName(state)}</option>`)}
           </select>
+          <span class="muted" id="state-meaning" style="font-size:0.85rem;max-width:16rem">${stateMeanings[bar.state]}</span>
         </div>
       </div>
       <div class="layout">
@@ -425,9 +427,9 @@ export class BwShapeView extends LitElement {
             ${this.shapeError ? html`<p class="problem" role="alert">${this.shapeError}</p>` : nothing}
           </section>
           ${this.renderPartials()}
-          ${rect && bar.current.profile_mm ? html`<bw-cautions></bw-cautions>` : nothing}
+          ${rect && bar.current.profile_mm ? html`<bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>` : nothing}
           <section class="panel">
-            <h3>Where to cut</h3>
+            <h3>What a cut does, along the bar</h3>
             <bw-cut-map .sensitivities=${this.cutMap} ?applicable=${rect} length=${this.shape?.length_mm ?? 0}></bw-cut-map>
           </section>
           ${this.renderModes()} ${rect ? this.renderPlan() : nothing} ${this.renderEngineering()}

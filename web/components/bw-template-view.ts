@@ -148,7 +148,7 @@ export class BwTemplateView extends LitElement {
         ${nodes.map((node) => svg`<line x1=${x(node)} y1=${inset.top - 2} x2=${x(node)} y2=${barBottom + 4} stroke="#000" stroke-width="0.3" stroke-dasharray="1.5 1"></line><circle cx=${x(node)} cy=${inset.top + thickness / 2} r="1.5" fill="none" stroke="#000" stroke-width="0.3"></circle><line x1=${x(node) - 2.5} y1=${inset.top + thickness / 2} x2=${x(node) + 2.5} y2=${inset.top + thickness / 2} stroke="#000" stroke-width="0.2"></line>`)}
       </g>
       ${inside.map(([position, t], index) => (index % labelStep === 0 ? svg`<line x1=${x(position)} y1=${inset.top + t} x2=${x(position)} y2=${barBottom + 2.5} stroke="#000" stroke-width="0.15"></line><text x=${x(position)} y=${barBottom + 6.5} font-size="2.6" text-anchor="middle">${formatMm(t)}</text>` : nothing))}
-      <text x=${inset.left} y=${barBottom + 11} font-size="3">Numbers under the bar: thickness (mm) at each station. ${nodes.filter((node) => node >= from && node <= to).map((node) => `Cord hole at ${formatMm(node)} mm. `).join('')}</text>
+      <text x=${inset.left} y=${barBottom + 11} font-size="3">${shape.section.shape === 'rect' ? 'Numbers under the bar: thickness (mm) at each station.' : 'Numbers under the piece: its outer diameter (mm).'} ${nodes.filter((node) => node >= from && node <= to).map((node) => (shape.section.shape === 'rect' ? `Cord hole at ${formatMm(node)} mm. ` : `Node at ${formatMm(node)} mm: hang or support here. `)).join('')}</text>
       ${page > 1 ? svg`<line x1=${inset.left} y1=${inset.top - 10} x2=${inset.left} y2=${barBottom + 8} stroke="#000" stroke-width="0.4"></line><text x=${inset.left + 1} y=${barBottom + 15} font-size="2.8">◀ join to page ${page - 1}</text>` : nothing}
       ${page < pages ? svg`<line x1=${inset.left + to - from} y1=${inset.top - 10} x2=${inset.left + to - from} y2=${barBottom + 8} stroke="#000" stroke-width="0.4"></line><text x=${inset.left + to - from - 1} y=${barBottom + 15} font-size="2.8" text-anchor="end">join to page ${page + 1} ▶</text>` : nothing}
       <g transform=${`translate(${inset.left} ${height - 14})`} data-testid="scale-bar">
@@ -192,7 +192,7 @@ export class BwTemplateView extends LitElement {
             ${Object.entries(papers).map(([name, value]) => html`<option value=${name} ?selected=${name === this.paper}>${value.label}</option>`)}
           </select>
         </div>
-        <button class="primary" @click=${() => window.print()}>Print</button>
+        <button class="primary" @click=${() => window.print()}>Print this template</button>
       </div>
       <p class="screen-only muted">${pages} page${pages === 1 ? '' : 's'} at true scale (1:1). In the print dialog choose ${paper.label}, scale 100 %, and check the 100 mm bar with a ruler.</p>
       <bw-cautions class="screen-only"></bw-cautions>

@@ -5,6 +5,7 @@
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import {
+  barMaterialFamily,
   barTargetHz,
   comparePartials,
   cutInstructions,
@@ -328,7 +329,7 @@ export class BwTuningView extends LitElement {
           ? html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
           : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
               ${extras.warnings && extras.warnings.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${extras.warnings.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
-              <bw-cautions></bw-cautions>
+              <bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>
               <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
               <bw-station-table .plan=${plan}></bw-station-table>
               <h4>Expected after this cut</h4>

@@ -2,7 +2,7 @@
 // after it is made, and handles the other tabs. A save is based on a revision; if another tab
 // saved first, nothing is overwritten and the maker chooses what to keep. A failed save or
 // import leaves the stored data as it was.
-import { InputError, isInputError, parseProjectFile, readProjectFileText, serializeProjectFile, type ProjectFile } from '../../src/index.ts';
+import { InputError, duplicateProject, isInputError, parseProjectFile, readProjectFileText, renameProject, serializeProjectFile, uniqueProjectName, type ProjectFile } from '../../src/index.ts';
 import { ProjectDatabase, SaveConflict, newProjectId, type ProjectSummary } from './projectDatabase.ts';
 import { TabNotices, type TabNotice } from './tabNotices.ts';
 
@@ -23,10 +23,25 @@ export interface KeeperState {
   notice: string | null;
   /** Set when the database cannot be opened (private mode, blocked storage). */
   storageProblem: string | null;
+  /** Deleted projects that can still be restored (newest first). */
+  binned: { id: string; name: string; deleted_at: string }[];
+  /** The project deleted last in this tab, offered for an immediate undo, or null. */
+  lastDeleted: { id: string; name: string } | null;
+  /** Storage is open and holds no project (all deleted): the maker starts one. */
+  noProject: boolean;
 }
 
 /** Outcome of an edit or import. */
 export type KeeperResult = { ok: true } | { ok: false; error: InputError };
+
+/**
+ * Outcome of an import: done, refused (the rule broken), or waiting for the maker's choice because
+ * a stored project already has the file's name (`suggested` is the free name a copy would get).
+ */
+export type ImportResult = KeeperResult | { ok: false; error: InputError; nameTaken: { name: string; suggested: string; storedId: string } };
+
+/** What to do with an imported project whose name is taken: keep both (the import renamed), or replace the stored one (which goes to the bin). */
+export type ImportChoice = 'copy' | 'replace';
 
 /** Options for tests. */
 export interface KeeperOptions {
@@ -39,10 +54,12 @@ export interface KeeperOptions {
 
 /** Key of the setting holding the project opened last. */
 const lastProjectKey = 'lastProjectId';
+/** Key of the setting that says the demo was offered once (it is not added again after every project is deleted). */
+const demoOfferedKey = 'demoOffered';
 
 /** The open project and its storage. */
 export class ProjectKeeper {
-  state: KeeperState = { project: null, projects: [], unsaved: false, saving: false, lastSavedAt: null, saveProblem: null, conflict: null, notice: null, storageProblem: null };
+  state: KeeperState = { project: null, projects: [], unsaved: false, saving: false, lastSavedAt: null, saveProblem: null, conflict: null, notice: null, storageProblem: null, binned: [], lastDeleted: null, noProject: false };
   private database: ProjectDatabase | null = null;
   private notices: TabNotices | null = null;
   private baseRevision = 0;
@@ -85,10 +102,16 @@ export class ProjectKeeper {
     }
     this.notices = new TabNotices((notice) => void this.onNotice(notice), this.options.channelName);
     let projects = await this.database.list();
-    if (projects.length === 0) {
+    if (projects.length === 0 && (await this.database.setting(demoOfferedKey)) === undefined) {
       const demo = parseProjectFile(await loadDemo(), 'demo project');
       await this.database.add({ ...demo, revision: 0, saved_at: null }, this.now());
       projects = await this.database.list();
+    }
+    await this.database.setSetting(demoOfferedKey, '1');
+    this.set({ binned: await this.database.binned(this.now()) });
+    if (projects.length === 0) {
+      this.set({ projects, noProject: true });
+      return;
     }
     const lastId = await this.database.setting(lastProjectKey);
     const id = projects.some((project) => project.id === lastId) ? lastId! : projects[0]!.id;
@@ -104,7 +127,7 @@ export class ProjectKeeper {
     this.baseRevision = project.revision;
     this.localVersion += 1;
     await this.database.setSetting(lastProjectKey, id);
-    this.set({ project, projects: await this.database.list(), unsaved: false, lastSavedAt: project.saved_at, saveProblem: null, conflict: null, notice: null });
+    this.set({ project, projects: await this.database.list(), unsaved: false, lastSavedAt: project.saved_at, saveProblem: null, conflict: null, notice: null, noProject: false });
   }
 
   /**
@@ -227,9 +250,12 @@ export class ProjectKeeper {
 
   /**
    * Imports a project file's text as a new project and opens it. A file that does not validate
-   * is refused with its first problem; nothing stored or open changes.
+   * is refused with its first problem; nothing stored or open changes. A file whose project name
+   * is already stored is never added silently beside it: without `choice` the answer names the
+   * clash and the free name a copy would get; `copy` imports it under that name, `replace` moves
+   * the stored one to the bin (restorable) and imports the file in its place.
    */
-  async importText(text: string, fileName: string): Promise<KeeperResult> {
+  async importText(text: string, fileName: string, choice?: ImportChoice): Promise<ImportResult> {
     let project: ProjectFile;
     try {
       project = readProjectFileText(text, fileName);
@@ -238,15 +264,114 @@ export class ProjectKeeper {
       throw error;
     }
     if (!this.database) return { ok: false, error: new InputError(fileName, '(file)', 'cannot be imported: this browser refused storage') };
+    const stored = (await this.database.list()).find((summary) => summary.name.trim().toLocaleLowerCase() === project.name.trim().toLocaleLowerCase());
+    if (stored && choice === undefined) {
+      const suggested = uniqueProjectName(project.name, this.state.projects.map((summary) => summary.name));
+      return { ok: false, error: new InputError(fileName, 'name', `a project called “${stored.name}” is already stored: import this one as “${suggested}”, or replace the stored one`), nameTaken: { name: stored.name, suggested, storedId: stored.id } };
+    }
     try {
-      const stored = await this.database.add(project, this.now());
-      await this.open(stored.id);
-      this.set({ notice: `Imported “${stored.name}” from ${fileName}.` });
+      let replaced = '';
+      if (stored && choice === 'copy') project = { ...project, name: uniqueProjectName(project.name, (await this.database.list()).map((summary) => summary.name)) };
+      if (stored && choice === 'replace') {
+        if (this.state.project?.id === stored.id) await this.flush();
+        await this.database.moveToBin(stored.id, this.now());
+        replaced = ` The project it replaces is in “Recently deleted”.`;
+      }
+      const added = await this.database.add(project, this.now());
+      await this.open(added.id);
+      this.set({ notice: `Imported “${added.name}” from ${fileName}.${replaced}`, binned: await this.database.binned(this.now()) });
       return { ok: true };
     } catch (error) {
       if (isInputError(error)) return { ok: false, error };
       return { ok: false, error: new InputError(fileName, '(file)', `could not be stored (${error instanceof Error ? error.message : String(error)})`) };
     }
+  }
+
+  /** Stores a new project (e.g. an empty one) and opens it; its name must differ from every stored project's. */
+  async create(project: ProjectFile): Promise<KeeperResult> {
+    if (!this.database) return { ok: false, error: new InputError('project', '(storage)', 'cannot be stored: this browser refused storage') };
+    try {
+      renameProject(project, project.name, this.state.projects.map((summary) => summary.name));
+      const added = await this.database.add(project, this.now());
+      await this.open(added.id);
+      this.set({ notice: `Started “${added.name}”.` });
+      return { ok: true };
+    } catch (error) {
+      if (isInputError(error)) return { ok: false, error };
+      throw error;
+    }
+  }
+
+  /** Names of the stored projects other than the open one. */
+  otherNames(): string[] {
+    return this.state.projects.filter((summary) => summary.id !== this.state.project?.id).map((summary) => summary.name);
+  }
+
+  /** Renames the open project (1–200 characters, not another stored project's name). */
+  rename(name: string): KeeperResult {
+    const others = this.otherNames();
+    const outcome = this.edit((project) => renameProject(project, name, others));
+    if (outcome.ok && this.state.project) {
+      const id = this.state.project.id;
+      this.set({ projects: this.state.projects.map((summary) => (summary.id === id ? { ...summary, name: this.state.project!.name } : summary)) });
+    }
+    return outcome;
+  }
+
+  /** Stores a copy of the open project (every bar and round) under a free name and opens it. */
+  async duplicate(): Promise<void> {
+    const project = this.state.project;
+    if (!project || !this.database) return;
+    await this.flush();
+    const copy = duplicateProject(this.state.project ?? project, { id: newProjectId(), takenNames: (await this.database.list()).map((summary) => summary.name) });
+    const added = await this.database.add(copy, this.now());
+    await this.open(added.id);
+    this.set({ notice: `Copied as “${added.name}”; this is the copy.` });
+  }
+
+  /**
+   * Deletes a stored project: it goes to the bin (restorable for 30 days, and at once with undo).
+   * If it was open, the most recently saved other project opens, or none is left open.
+   */
+  async deleteProject(id: string): Promise<void> {
+    if (!this.database) return;
+    const wasOpen = this.state.project?.id === id;
+    if (wasOpen) {
+      if (this.saveTimer) {
+        clearTimeout(this.saveTimer);
+        this.saveTimer = null;
+      }
+      if (this.saving) await this.saving;
+      // Unsaved changes of the open project are kept with it in the bin.
+      if (this.state.unsaved && !this.state.conflict) await this.saveNow();
+    }
+    const entry = await this.database.moveToBin(id, this.now());
+    if (!entry) return;
+    const projects = await this.database.list();
+    const binned = await this.database.binned(this.now());
+    if (wasOpen) {
+      this.localVersion += 1;
+      if (projects.length > 0) await this.open(projects[0]!.id);
+      else this.set({ project: null, projects, unsaved: false, lastSavedAt: null, saveProblem: null, conflict: null, noProject: true });
+    }
+    this.set({ projects, binned, lastDeleted: { id: entry.id, name: entry.name }, notice: null });
+    this.notices?.announceSaved(entry.id, entry.project.revision + 1);
+  }
+
+  /** Restores a deleted project from the bin (under a free name if its name was taken meanwhile) and opens it. */
+  async restore(id: string): Promise<void> {
+    if (!this.database) return;
+    const project = await this.database.takeFromBin(id);
+    if (!project) return;
+    const names = (await this.database.list()).map((summary) => summary.name);
+    const added = await this.database.add({ ...project, name: uniqueProjectName(project.name, names) }, this.now());
+    await this.open(added.id);
+    this.set({ binned: await this.database.binned(this.now()), lastDeleted: null, notice: `Restored “${added.name}”.` });
+  }
+
+  /** Clears the offer to undo the last deletion (it stays restorable from the bin). */
+  dismissUndo(): void {
+    this.set({ lastDeleted: null });
   }
 
   /** The open project as project-file text (JSON) for export. */
@@ -255,11 +380,12 @@ export class ProjectKeeper {
     return serializeProjectFile(this.state.project, 'export');
   }
 
-  /** Stores a fresh copy of the demo project and opens it. */
+  /** Stores a fresh copy of the demo project (under a free name) and opens it. */
   async addDemo(loadDemo: () => Promise<unknown>): Promise<void> {
     if (!this.database) return;
     const demo = parseProjectFile(await loadDemo(), 'demo project');
-    const stored = await this.database.add({ ...demo, id: newProjectId() }, this.now());
+    const names = (await this.database.list()).map((summary) => summary.name);
+    const stored = await this.database.add({ ...demo, id: newProjectId(), name: uniqueProjectName(demo.name, names) }, this.now());
     await this.open(stored.id);
   }
 

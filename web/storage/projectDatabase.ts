@@ -15,7 +15,19 @@ interface WorkbenchSchema extends DBSchema {
   projects: { key: string; value: ProjectFile };
   snapshots: { key: number; value: { projectId: string; revision: number; saved_at: string | null; project: ProjectFile }; indexes: { byProject: string } };
   settings: { key: string; value: string };
+  bin: { key: string; value: DeletedProject };
 }
+
+/** A deleted project, kept so the deletion can be undone for a while (binDays). */
+export interface DeletedProject {
+  id: string;
+  name: string;
+  deleted_at: string;
+  project: ProjectFile;
+}
+
+/** Days a deleted project stays restorable. */
+export const binDays = 30;
 
 /** A project as listed in the project picker. */
 export interface ProjectSummary {
@@ -50,12 +62,16 @@ export class ProjectDatabase {
 
   /** Opens (and creates or upgrades) the database. */
   static async open(name: string = databaseName): Promise<ProjectDatabase> {
-    const database = await openDB<WorkbenchSchema>(name, 1, {
-      upgrade(db) {
-        db.createObjectStore('projects', { keyPath: 'id' });
-        const snapshots = db.createObjectStore('snapshots', { autoIncrement: true });
-        snapshots.createIndex('byProject', 'projectId');
-        db.createObjectStore('settings');
+    const database = await openDB<WorkbenchSchema>(name, 2, {
+      upgrade(db, oldVersion) {
+        if (oldVersion < 1) {
+          db.createObjectStore('projects', { keyPath: 'id' });
+          const snapshots = db.createObjectStore('snapshots', { autoIncrement: true });
+          snapshots.createIndex('byProject', 'projectId');
+          db.createObjectStore('settings');
+        }
+        // Version 2: deleted projects, restorable for binDays.
+        if (oldVersion < 2) db.createObjectStore('bin', { keyPath: 'id' });
       },
     });
     return new ProjectDatabase(database);
@@ -123,6 +139,49 @@ export class ProjectDatabase {
     const keys = await transaction.objectStore('snapshots').index('byProject').getAllKeys(id);
     for (const key of keys) await transaction.objectStore('snapshots').delete(key);
     await transaction.done;
+  }
+
+  /**
+   * Deletes a project but keeps it (its last saved version) in the bin, in one transaction, so the
+   * deletion can be undone for binDays. Returns what was kept, or undefined when it was not stored.
+   */
+  async moveToBin(id: string, now: Date = new Date()): Promise<DeletedProject | undefined> {
+    const transaction = this.database.transaction(['projects', 'snapshots', 'bin'], 'readwrite');
+    const stored = await transaction.objectStore('projects').get(id);
+    if (!stored) {
+      transaction.abort();
+      await transaction.done.catch(() => undefined);
+      return undefined;
+    }
+    const entry: DeletedProject = { id: stored.id, name: stored.name, deleted_at: now.toISOString(), project: stored };
+    await transaction.objectStore('bin').put(entry);
+    await transaction.objectStore('projects').delete(id);
+    const keys = await transaction.objectStore('snapshots').index('byProject').getAllKeys(id);
+    for (const key of keys) await transaction.objectStore('snapshots').delete(key);
+    await transaction.done;
+    return entry;
+  }
+
+  /** Deleted projects still restorable, newest deletion first (older than binDays are dropped first). */
+  async binned(now: Date = new Date()): Promise<{ id: string; name: string; deleted_at: string }[]> {
+    const cutoff = now.getTime() - binDays * 24 * 3600 * 1000;
+    const transaction = this.database.transaction('bin', 'readwrite');
+    const entries = await transaction.store.getAll();
+    for (const entry of entries) if (Date.parse(entry.deleted_at) < cutoff) await transaction.store.delete(entry.id);
+    await transaction.done;
+    return entries
+      .filter((entry) => Date.parse(entry.deleted_at) >= cutoff)
+      .map(({ id, name, deleted_at }) => ({ id, name, deleted_at }))
+      .sort((a, b) => b.deleted_at.localeCompare(a.deleted_at));
+  }
+
+  /** Takes a deleted project out of the bin (validated), or undefined when it is not there. */
+  async takeFromBin(id: string): Promise<ProjectFile | undefined> {
+    const transaction = this.database.transaction('bin', 'readwrite');
+    const entry = await transaction.store.get(id);
+    if (entry) await transaction.store.delete(id);
+    await transaction.done;
+    return entry ? parseProjectFile(entry.project, 'deleted project') : undefined;
   }
 
   /** Earlier revisions of a project, newest first. */

@@ -115,9 +115,16 @@ export const sharedStyles = css`
   th.number {
     text-align: right;
   }
-  /* A wide table scrolls inside its box instead of widening the page (tablet portrait). */
+  /* A wide table scrolls inside its box instead of widening the page (tablet portrait); soft
+     shadows at the box's edges show that more columns lie beyond (they move with the scroll). */
   .table-wrap {
     overflow-x: auto;
+    max-width: 100%;
+    background:
+      linear-gradient(to right, var(--bw-panel) 30%, rgb(255 255 255 / 0)) left / 2rem 100% no-repeat local,
+      linear-gradient(to left, var(--bw-panel) 30%, rgb(255 255 255 / 0)) right / 2rem 100% no-repeat local,
+      radial-gradient(farthest-side at 0 50%, rgb(0 0 0 / 0.2), transparent) left / 0.7rem 100% no-repeat scroll,
+      radial-gradient(farthest-side at 100% 50%, rgb(0 0 0 / 0.2), transparent) right / 0.7rem 100% no-repeat scroll;
   }
   /* The note name leads each row of a per-bar or per-chime table: readable from the bench. */
   td.note {

@@ -135,6 +135,7 @@ export const tubesCommand: Command = {
         ]),
       ]),
       '',
+      ...rows.flatMap((row) => row.warnings.map((warning) => `${row.label ? `${row.label}: ` : ''}${warning.message} ${warning.remedies.join(' ')}`)),
       'Length is from the closed bottom (inside face of the stopper) to the open end. Cut long, then trim while listening.',
     ];
     io.stdout(lines.join('\n'));
