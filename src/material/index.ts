@@ -1,2 +1,3 @@
 export * from './Material.ts';
 export * from './materialPresets.ts';
+export * from './pitchTemperatureCoefficient.ts';
