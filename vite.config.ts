@@ -7,8 +7,6 @@ const repositoryRoot = fileURLToPath(new URL('.', import.meta.url));
 
 export default defineConfig({
   root: 'web',
-  // numeric (if the library uses it) builds functions from strings that refer to a global
-  // `numeric`, which only Node sets: web/numericShim.ts sets globalThis.numeric first.
   server: { fs: { allow: [repositoryRoot] } },
   worker: { format: 'es' },
   build: { outDir: '../dist', emptyOutDir: true, target: 'es2022', chunkSizeWarningLimit: 1500 },

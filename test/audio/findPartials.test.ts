@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { decodeWav, encodeWav, findPartials, type MeasuredPartial } from '../../src/audio/index.ts';
 import { cents } from '../../src/pitch/index.ts';
 import { InputError } from '../../src/fileFormats/InputError.ts';
@@ -22,6 +22,7 @@ function audible(partials: readonly SyntheticPartial[]): SyntheticPartial[] {
   return partials.filter((p) => 20 * Math.log10(p.amplitude / strongest) >= -20);
 }
 
+/** The worst errors seen, printed after the cases for the record (no test depends on it). */
 const worst = { cents: 0, decay: 0, level: 0, checked: 0 };
 
 describe('findPartials on synthetic strikes (known partials, decay, strike noise, mains hum, noise)', () => {
@@ -63,10 +64,9 @@ describe('findPartials on synthetic strikes (known partials, decay, strike noise
     }
   }
 
-  it('checked every audible partial of every case (and prints the worst errors for the record)', () => {
-    const audibleCount = demoBars.reduce((sum, bar) => sum + audible(bar.partials).length, 0);
-    expect(worst.checked).toBe(audibleCount * 3 * 2 * 2);
-    console.log(`worst partial error ${worst.cents.toFixed(3)} cents, decay ${(100 * worst.decay).toFixed(1)} %, level ${worst.level.toFixed(2)} dB over ${worst.checked} partials`);
+  // For the record (the assertions are in each case above): the worst errors over the cases run.
+  afterAll(() => {
+    if (worst.checked > 0) console.log(`worst partial error ${worst.cents.toFixed(3)} cents, decay ${(100 * worst.decay).toFixed(1)} %, level ${worst.level.toFixed(2)} dB over ${worst.checked} partials`);
   });
 });
 

@@ -37,6 +37,7 @@ const types: [string, BeamElementType][] = [
   ['Hermite cubic (Euler–Bernoulli)', hermiteCubicElement],
   ['Timoshenko p = 2', timoshenkoLagrangeElement(2)],
   ['Timoshenko p = 3', timoshenkoLagrangeElement(3)],
+  ['Timoshenko p = 4 (the default element)', timoshenkoLagrangeElement(4)],
 ];
 
 describe('Gauss–Legendre rule', () => {
@@ -144,11 +145,25 @@ describe('torsion element', () => {
         for (let b = 0; b < n; b++) sum += k[a * n + b]!;
         expect(Math.abs(sum)).toBeLessThan(1e-12 * Math.abs(k[0]!));
       }
-      // Rigid twist ψ = 1: kinetic energy ∫ρI_p dx > 0, and the mass matrix is symmetric.
-      let total = 0;
-      for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) total += m[a * n + b]!;
-      expect(total).toBeGreaterThan(0);
       for (let a = 0; a < n; a++) for (let b = 0; b < n; b++) expect(m[a * n + b]).toBe(m[b * n + a]);
+    });
+    it(`degree ${type.degree}: a rigid twist carries ρ∫I_p dx (closed form for a linear taper)`, () => {
+      // I_p = b·t·(b² + t²)/12 for a rectangle; with t linear from t0 to t1 over h:
+      // ∫ I_p dx = (b/12)·[b²·h·(t0 + t1)/2 + h·(t0⁴ − t1⁴)/(4(t0 − t1))]. The quadrature (degree + 2
+      // Gauss points) integrates this cubic exactly, so only rounding is left (1e-12).
+      const [h, t0, t1, b] = [0.01, 0.02, 0.015, rect.shape === 'rect' ? rect.width : 0];
+      const expected = wood.density * (b / 12) * (b * b * h * ((t0 + t1) / 2) + (h * (t0 ** 4 - t1 ** 4)) / (4 * (t0 - t1)));
+      expect(quadratic(m, n, new Float64Array(n).fill(1)) / expected).toBeCloseTo(1, 12);
+    });
+    it(`degree ${type.degree}: a uniform twist rate stores G·J·h (St-Venant, closed form)`, () => {
+      const uniformK = new Float64Array(n * n);
+      const uniformM = new Float64Array(n * n);
+      torsionElement(0.01, 0.02, 0.02, tlaw, uniformK, uniformM, type);
+      // Twist ψ = x: the nodal values are the dof positions ξ·h (Lagrange interpolation of a linear
+      // field is exact, so ψ' = 1 throughout).
+      const u = Float64Array.from({ length: n }, (_, a) => type.points[a]! * 0.01);
+      const J = rectangleTorsionConstant(rect.shape === 'rect' ? rect.width : 0, 0.02);
+      expect(quadratic(uniformK, n, u) / (wood.shearModulus * J * 0.01)).toBeCloseTo(1, 10);
     });
   }
 });

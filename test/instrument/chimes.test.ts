@@ -175,9 +175,12 @@ describe('hanging point', () => {
 describe('strike note', () => {
   it('is the virtual pitch of modes 4–6 taken as harmonics 2 : 3 : 4, near an octave below mode 4', () => {
     // Uniform Euler–Bernoulli ratios 8.932950 : 13.344287 : 18.637888 (Blevins 1979, table 8-1; reference-values.md).
+    // A true harmonic series 2f : 3f : 4f has its virtual pitch at f exactly (the definition of
+    // the missing fundamental), and it scales with the frequencies.
+    expect(strikeNote(2 * 440, 3 * 440, 4 * 440).hz).toBeCloseTo(440, 9);
+    expect(strikeNote(2 * 440, 3 * 440, 4 * 440).harmonicDeviationCents.every((d) => Math.abs(d) < 1e-9)).toBe(true);
+    expect(strikeNote(2 * 880, 3 * 880, 4 * 880).hz / strikeNote(2 * 440, 3 * 440, 4 * 440).hz).toBeCloseTo(2, 12);
     const strike = strikeNote(8.93295, 13.344287, 18.637888);
-    expect(strike.hz).toBeCloseTo(Math.cbrt((8.93295 / 2) * (13.344287 / 3) * (18.637888 / 4)), 12);
-    expect(strike.octaveBelowMode4Hz).toBeCloseTo(8.93295 / 2, 12);
     // "About an octave below mode 4": within 50 cents of f₄/2 (common statement of the chime's strike note).
     expect(Math.abs(cents(strike.hz, strike.octaveBelowMode4Hz))).toBeLessThan(50);
     // Modes 4–6 are near 2 : 3 : 4: each within 70 cents of its harmonic.

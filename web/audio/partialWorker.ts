@@ -1,7 +1,6 @@
 // Worker that finds partials off the main thread with the library's own code (src/audio via
 // src/index.ts), in the workbench's job protocol: a dropped WAV file is decoded and analysed, a
 // microphone capture analysed.
-import '../numericShim.ts';
 import { analyzeRecording, findPartials, tapReport } from '../../src/index.ts';
 import { serveJobs } from '../worker/serveJobs.ts';
 import type { PartialJobs } from './partialProtocol.ts';

@@ -1,6 +1,5 @@
 // Development page for <bw-listen> on its own: targets from the query string
 // (?targets=351.2,1404.9,3512), every partials-measured event kept on window for tests.
-import '../numericShim.ts';
 import '../components/bw-listen.ts';
 import type { PartialsMeasuredDetail } from '../components/bw-listen.ts';
 
