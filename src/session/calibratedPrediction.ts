@@ -41,6 +41,25 @@ export interface CalibrationSummary {
   length_mm: number;
 }
 
+/** The correction of a summary as a profile (mm) on a bar `lengthMm` long cut from the last step's by equal trims. */
+function correctionProfile(summary: CalibrationSummary, lengthMm: number): { positions: Float64Array; thicknesses: Float64Array } {
+  const trim = (summary.length_mm - lengthMm) / 2;
+  return { positions: Float64Array.from(summary.shape_correction_mm, ([x]) => x - trim), thicknesses: Float64Array.from(summary.shape_correction_mm, ([, d]) => d) };
+}
+
+/** A bar file moved by the shape correction (sign +1: as the session believes it is; −1: back to the ledger's record). */
+function movedBar(bar: BarFile, summary: CalibrationSummary, sign: 1 | -1): BarFile {
+  if (bar.section.shape !== 'rect' || summary.shape_correction_mm.length === 0 || bar.length_mm > summary.length_mm + 1e-6) return bar;
+  const correction = correctionProfile(summary, bar.length_mm);
+  const own = barModelFromFile(bar).profile;
+  const positions = mergeStations([Array.from(own.positions, (x) => x / mm), Array.from(correction.positions).filter((x) => x > 0 && x < bar.length_mm), [0, bar.length_mm]], 1e-6);
+  const blank = bar.section.thickness_mm;
+  const profile = Array.from(positions, (x) => [round(x, 3), round(Math.min(blank, Math.max(0.02 * blank, thicknessAt(own, x * mm) / mm + sign * thicknessAt(correction, x))), 4)] as [number, number]);
+  profile[0]![0] = 0;
+  profile[profile.length - 1]![0] = bar.length_mm;
+  return { ...structuredClone(bar), profile_mm: profile };
+}
+
 /** The summary of a calibration (see CalibrationSummary). */
 export function calibrationSummary(calibration: SessionCalibration, log: SessionLog): CalibrationSummary {
   const last = log.steps[log.steps.length - 1]!.bar;
@@ -73,16 +92,7 @@ export function calibrationSummary(calibration: SessionCalibration, log: Session
  * returned as they are.
  */
 export function correctedBar(bar: BarFile, summary: CalibrationSummary): BarFile {
-  if (bar.section.shape !== 'rect' || summary.shape_correction_mm.length === 0 || bar.length_mm > summary.length_mm + 1e-6) return bar;
-  const trim = (summary.length_mm - bar.length_mm) / 2;
-  const correction = { positions: Float64Array.from(summary.shape_correction_mm, ([x]) => x - trim), thicknesses: Float64Array.from(summary.shape_correction_mm, ([, d]) => d) };
-  const own = barModelFromFile(bar).profile;
-  const positions = mergeStations([Array.from(own.positions, (x) => x / mm), Array.from(correction.positions).filter((x) => x > 0 && x < bar.length_mm), [0, bar.length_mm]], 1e-6);
-  const blank = bar.section.thickness_mm;
-  const profile = Array.from(positions, (x) => [round(x, 3), round(Math.min(blank, Math.max(0.02 * blank, thicknessAt(own, x * mm) / mm + thicknessAt(correction, x))), 4)] as [number, number]);
-  profile[0]![0] = 0;
-  profile[profile.length - 1]![0] = bar.length_mm;
-  return { ...structuredClone(bar), profile_mm: profile };
+  return movedBar(bar, summary, 1);
 }
 
 /** A bar-file material with the calibrated E, G and density (Poisson's ratio, κ and the temperature coefficient kept). */
@@ -132,11 +142,13 @@ const correctionPasses = 3;
 
 /**
  * `designBar` with a session's calibration: the bar as the session believes it really is
- * (correctedBar: its profile is then the real thicknesses to cut to) designed with the calibrated moduli, toward
+ * (correctedBar) designed with the calibrated moduli, toward
  * targets moved by the calibration's corrections at the arch depth the design reaches (target_n ·
  * exp(−c_n·depth); repeated up to three times as the depth settles), so the calibrated model of
- * the designed shape meets the real targets. The result reports the real targets, the calibrated
- * predictions and their errors, feasible when every error is within tolerance, and `calibration`.
+ * the designed shape meets the real targets. The bar returned is in the session's ledger (the bar
+ * file as recorded minus the depth to remove, with the bar's own material), so `modes --session`
+ * on it gives the same prediction. The result reports the real targets, the calibrated predictions
+ * and their errors, feasible when every error is within tolerance, and `calibration`.
  */
 export function calibratedDesign(bar: BarFile, request: DesignRequest, summary: CalibrationSummary, run: DesignRunOptions = {}, source = 'design'): DesignResult & { calibration: CalibrationSummary } {
   const calibratedBar: BarFile = { ...correctedBar(bar, summary), material: calibratedMaterial(bar.material, summary) };
@@ -161,6 +173,8 @@ export function calibratedDesign(bar: BarFile, request: DesignRequest, summary: 
   const feasible = error.every((c, n) => Math.abs(c) <= result.tolerance_cents[n]!);
   const designed: DesignResult & { calibration: CalibrationSummary } = {
     ...result,
+    // Written in the session's ledger, like next-cut's bar_after: the record minus the depth to remove.
+    bar: { ...movedBar(result.bar, summary, -1), material: structuredClone(bar.material) },
     feasible,
     a4_hz: first.a4_hz,
     target_hz: targets,
