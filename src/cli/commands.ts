@@ -4,6 +4,7 @@ import { materialsCommand } from './commands/materials.ts';
 import { designCommand } from './commands/design.ts';
 import { characterizeCommand } from './commands/characterize.ts';
 import { nextCutCommand } from './commands/next-cut.ts';
+import { lotsCommand } from './commands/lots.ts';
 import { tapCommand } from './commands/tap.ts';
 import { tubesCommand } from './commands/tubes.ts';
 import { planCommand } from './commands/plan.ts';
@@ -14,4 +15,4 @@ import { bellbarCommand } from './commands/bellbar.ts';
  * Every `barwright` sub-command, in the order `barwright help` lists them.
  * To add one: write `src/cli/commands/<name>.ts` exporting a `Command`, and add it here.
  */
-export const commands: Command[] = [modesCommand, materialsCommand, designCommand, characterizeCommand, nextCutCommand, tapCommand, tubesCommand, planCommand, chimeCommand, bellbarCommand];
+export const commands: Command[] = [modesCommand, materialsCommand, designCommand, characterizeCommand, nextCutCommand, lotsCommand, tapCommand, tubesCommand, planCommand, chimeCommand, bellbarCommand];

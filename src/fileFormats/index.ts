@@ -12,6 +12,7 @@ export * from './barFileMaterial.ts';
 export * from './barFile.ts';
 export * from './sessionFile.ts';
 export * from './sessionLogEdits.ts';
+export * from './lotFile.ts';
 export * from './keyboardFileTypes.ts';
 export * from './keyboardFile.ts';
 export * from './chimeSetFile.ts';

@@ -1,14 +1,15 @@
 // The tune-and-trim session file (`*.session.json`, format "barwright.session", version 1):
-// types and the validating parser. The contract's fields come first; barwright's compatible
-// additions (cut limits beyond the minimum thickness, measurement uncertainty, and per step the
-// thicknesses measured, the air temperature, a note and how the cut was made) are all optional,
-// so every contract session file parses and every file written here is a contract session file.
+// types and the validating parser. The contract's fields come first, then its turn-2 additions
+// (the playing temperature; per step the air temperature, when the cut was finished and the
+// caliper readings `measured_thickness_mm`), then barwright's compatible additions (cut limits
+// beyond the minimum thickness, measurement uncertainty, a note and how the cut was made). All
+// are optional, so every contract session file parses and every file written here is one.
 import { InputError } from './InputError.ts';
 import type { CutLimitsInput } from './cutLimitsInput.ts';
 import type { SessionLog, SessionLogTarget } from './sessionFileTypes.ts';
 import { parseNote } from './noteName.ts';
 import { checkA4, midiToHz, standardA4Hz } from './concertPitch.ts';
-import { isJsonObject, parseSessionLogStep } from './sessionFileSteps.ts';
+import { isJsonObject, parseSessionLogStep, parseTemperature } from './sessionFileSteps.ts';
 
 export type * from './sessionFileTypes.ts';
 
@@ -61,6 +62,7 @@ function parseTarget(source: string, value: unknown): SessionLogTarget {
     parseNote(value.note, source, 'target.note');
     target.note = value.note;
   }
+  if (value.playing_temperature_c !== undefined) target.playing_temperature_c = parseTemperature(source, 'target.playing_temperature_c', value.playing_temperature_c);
   if (target.hz === undefined && target.note === undefined) throw new InputError(source, 'target', 'give the fundamental as "hz", or as "note" (with an optional "a4", default 440)');
   if (target.hz !== undefined && target.note !== undefined) {
     const fromNote = midiToHz(parseNote(target.note).midi, target.a4 ?? standardA4Hz);
@@ -95,6 +97,14 @@ export function sessionFundamentalHz(target: SessionLogTarget): number {
   return midiToHz(parseNote(target.note ?? '').midi, target.a4 ?? standardA4Hz);
 }
 
+/** Playing temperature assumed when a session gives none, °C (contract, turn 2: default 20). */
+export const defaultPlayingTemperatureC = 20;
+
+/** The temperature (°C) a session's readings are projected to: `target.playing_temperature_c`, or 20. */
+export function sessionPlayingTemperatureC(target: SessionLogTarget): number {
+  return target.playing_temperature_c ?? defaultPlayingTemperatureC;
+}
+
 /** Target frequency (Hz) of each tuned partial: the fundamental times each ratio. */
 export function sessionTargetHz(target: SessionLogTarget): number[] {
   const fundamental = sessionFundamentalHz(target);
@@ -107,7 +117,9 @@ export function sessionTargetHz(target: SessionLogTarget): number[] {
  * than 0 Hz (got -3)`; bar-file problems inside a step name the step (`steps[0].bar.profile_mm[3]`).
  * Rules beyond each field's own: every step's bar is the same kind of section, of the same width and
  * blank thickness as the first; `recorded_at` times never go backwards (the log is in the order the
- * bar was measured). Unknown fields are left out of the result (the file itself is never changed).
+ * bar was measured); a step's `cut_finished_at` lies between the previous step's reading and its
+ * own. Caliper readings under the older name `thickness_measured_mm` come back as
+ * `measured_thickness_mm`. Unknown fields are left out of the result (the file itself is never changed).
  */
 export function parseSessionFile(value: unknown, source = 'session'): SessionLog {
   if (!isJsonObject(value)) throw new InputError(source, 'session', 'must be a JSON object');
@@ -137,6 +149,9 @@ export function parseSessionFile(value: unknown, source = 'session'): SessionLog
     const now = step.recorded_at;
     if (previous !== undefined && now !== undefined && Date.parse(now) < Date.parse(previous))
       throw new InputError(source, `steps[${index}].recorded_at`, `${now} is earlier than step ${index}'s ${previous}: the log must be in the order the bar was measured`);
+    const finished = step.cut_finished_at;
+    if (previous !== undefined && finished !== undefined && Date.parse(finished) < Date.parse(previous))
+      throw new InputError(source, `steps[${index}].cut_finished_at`, `${finished} is earlier than step ${index}'s reading (${previous}): the cut is made after the bar was last struck`);
   });
   const log: SessionLog = { format: 'barwright.session', version: 1, target, limits, steps };
   if (typeof value.label === 'string') log.label = value.label;

@@ -49,6 +49,21 @@ function parseMeasuredThicknesses(source: string, field: string, value: unknown,
   return pairs;
 }
 
+/** Coldest and warmest temperature accepted, °C: a workshop or a stage, never a kiln. */
+export const temperatureRangeC: readonly [number, number] = [-30, 60];
+
+/** A temperature in °C within temperatureRangeC, or an InputError naming the field. */
+export function parseTemperature(source: string, field: string, value: unknown): number {
+  const temperature = number(source, field, value, '°C');
+  if (temperature < temperatureRangeC[0] || temperature > temperatureRangeC[1]) throw new InputError(source, field, `${temperature} °C is outside −30 to 60 °C`);
+  return temperature;
+}
+
+function parseTime(source: string, field: string, value: unknown): string {
+  if (typeof value !== 'string' || Number.isNaN(Date.parse(value))) throw new InputError(source, field, 'must be a date and time (ISO 8601)');
+  return value;
+}
+
 /** Validates one step; `field` is its place in the file (`steps[3]`), used in every message. */
 export function parseSessionLogStep(source: string, field: string, value: unknown): SessionLogStep {
   if (!isJsonObject(value)) throw new InputError(source, field, 'must be an object with "bar" and "measured_hz"');
@@ -60,12 +75,11 @@ export function parseSessionLogStep(source: string, field: string, value: unknow
     throw new InputError(source, error.field === 'bar' ? `${field}.bar` : `${field}.bar.${error.field}`, error.rule);
   }
   const step: SessionLogStep = { bar, measured_hz: hzList(source, `${field}.measured_hz`, value.measured_hz, 1) };
-  if (value.thickness_measured_mm !== undefined) step.thickness_measured_mm = parseMeasuredThicknesses(source, `${field}.thickness_measured_mm`, value.thickness_measured_mm, bar);
-  if (value.air_temperature_c !== undefined) {
-    const temperature = number(source, `${field}.air_temperature_c`, value.air_temperature_c, '°C');
-    if (temperature < -30 || temperature > 60) throw new InputError(source, `${field}.air_temperature_c`, `${temperature} °C is outside −30 to 60 °C`);
-    step.air_temperature_c = temperature;
-  }
+  if (value.measured_thickness_mm !== undefined && value.thickness_measured_mm !== undefined)
+    throw new InputError(source, `${field}.thickness_measured_mm`, 'give the caliper readings once, as measured_thickness_mm (thickness_measured_mm is the older name of the same field)');
+  if (value.measured_thickness_mm !== undefined) step.measured_thickness_mm = parseMeasuredThicknesses(source, `${field}.measured_thickness_mm`, value.measured_thickness_mm, bar);
+  else if (value.thickness_measured_mm !== undefined) step.measured_thickness_mm = parseMeasuredThicknesses(source, `${field}.thickness_measured_mm`, value.thickness_measured_mm, bar);
+  if (value.air_temperature_c !== undefined) step.air_temperature_c = parseTemperature(source, `${field}.air_temperature_c`, value.air_temperature_c);
   if (value.note !== undefined) {
     if (typeof value.note !== 'string') throw new InputError(source, `${field}.note`, 'must be text');
     if (value.note.length > noteLimit) throw new InputError(source, `${field}.note`, `must be at most ${noteLimit} characters`);
@@ -79,9 +93,11 @@ export function parseSessionLogStep(source: string, field: string, value: unknow
     if (cut.note !== undefined && typeof cut.note !== 'string') throw new InputError(source, `${field}.cut.note`, 'must be text');
     step.cut = typeof cut.note === 'string' ? { made: cut.made, note: cut.note } : { made: cut.made };
   }
-  if (value.recorded_at !== undefined) {
-    if (typeof value.recorded_at !== 'string' || Number.isNaN(Date.parse(value.recorded_at))) throw new InputError(source, `${field}.recorded_at`, 'must be a date and time (ISO 8601)');
-    step.recorded_at = value.recorded_at;
+  if (value.recorded_at !== undefined) step.recorded_at = parseTime(source, `${field}.recorded_at`, value.recorded_at);
+  if (value.cut_finished_at !== undefined) {
+    step.cut_finished_at = parseTime(source, `${field}.cut_finished_at`, value.cut_finished_at);
+    if (step.recorded_at !== undefined && Date.parse(step.cut_finished_at) > Date.parse(step.recorded_at))
+      throw new InputError(source, `${field}.cut_finished_at`, `${step.cut_finished_at} is after the reading (recorded_at ${step.recorded_at}): the cut is finished before the bar is struck`);
   }
   if (value.predicted_hz !== undefined) step.predicted_hz = hzList(source, `${field}.predicted_hz`, value.predicted_hz, 0);
   if (value.source !== undefined) {

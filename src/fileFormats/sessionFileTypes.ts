@@ -12,6 +12,8 @@ export interface SessionLogTarget {
   ratios: number[];
   /** Tolerance of each partial, cents (e.g. [2, 5, 15]). */
   tolerance_cents: number[];
+  /** The temperature the instrument is tuned for, °C (default 20): every reading is projected to it. */
+  playing_temperature_c?: number;
 }
 
 /** How a step's cut was made: `as-planned` (the shape recorded is the plan) or `as-done` (measured after cutting). */
@@ -29,10 +31,16 @@ export interface SessionLogStep {
   bar: BarFile;
   /** Measured partials, Hz, in partial order (1 = fundamental). */
   measured_hz: number[];
-  /** Thicknesses measured with a caliper, `[position_mm, thickness_mm]` (ascending positions). */
-  thickness_measured_mm?: [number, number][];
-  /** Room temperature when the bar was struck, °C (recorded; wood moves with temperature and humidity). */
+  /**
+   * Caliper readings of the bar as it really is at this step, `[position_mm, thickness_mm]`
+   * (ascending positions from the left end). Files written before the contract named it carry
+   * barwright's older name `thickness_measured_mm`: it is read into this field.
+   */
+  measured_thickness_mm?: [number, number][];
+  /** Air temperature when the bar was struck, °C: the reading is projected from it to the playing temperature. */
   air_temperature_c?: number;
+  /** When the cut before this step was finished (ISO 8601): a reading within 10 minutes of it is from a warm bar. */
+  cut_finished_at?: string;
   /** Free text for the maker. */
   note?: string;
   /** The cut made since the previous step (the first step has none). */

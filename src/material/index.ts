@@ -3,3 +3,4 @@ export * from './materialPresets.ts';
 export * from './orthotropicStiffness.ts';
 export * from './solidElasticity.ts';
 export * from './materialFamily.ts';
+export * from './pitchTemperatureCoefficient.ts';

@@ -12,6 +12,10 @@ export interface MaterialPreset {
   /** Shear modulus for vertical bending (woods); metals derive G from ν. */
   readonly G_GPa?: number;
   readonly poisson: number;
+  /** How the partials move per °C, cents (wood about −2, common practice; metals a few tenths). */
+  readonly pitch_cents_per_c: number;
+  /** Where pitch_cents_per_c comes from ("common practice", "from memory", a publication, or "demo"). */
+  readonly pitch_source: string;
   readonly density_kg_m3: number;
   /** Where each value comes from: a publication and table, "from memory", or "demo". */
   readonly sources: { readonly E: string; readonly G: string; readonly density: string; readonly poisson: string; readonly orthotropic?: string };
@@ -33,6 +37,8 @@ function woodSet(E_GPa: number, G_GPa: number): WoodConstants {
 }
 
 const woodOrthotropicSource = `E_L and G_LR (= G) as above; E_R, E_T, G_LT, G_RT and the Poisson's ratios from the ${hardwoodRatiosSource}`;
+const woodPitchSource = 'common practice: a wooden bar’s pitch falls about 2 cents per °C as it warms; not measured for this species';
+const aluminiumPitchSource = 'from memory: the modulus falls about 0.045 % per °C (f ∝ √E); thermal expansion adds about +0.01 cent per °C';
 
 const woodShear =
   'E/G ≈ 12–16 for hardwoods along the grain (USDA Wood Handbook FPL-GTR-190, table 5-1 ratios; from memory): fit per blank';
@@ -50,6 +56,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     E_GPa: 18,
     G_GPa: 1.3,
     poisson: 0.37,
+    pitch_cents_per_c: -2,
+    pitch_source: woodPitchSource,
     density_kg_m3: 1000,
     orthotropic: woodSet(18, 1.3),
     sources: { E: 'demo (invented, plausible for a dense tropical hardwood)', G: 'demo (E/G ≈ 14)', density: 'demo', poisson: 'demo', orthotropic: `demo: ${woodOrthotropicSource}` },
@@ -61,6 +69,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     E_GPa: 20,
     G_GPa: 1.45,
     poisson: 0.37,
+    pitch_cents_per_c: -2,
+    pitch_source: woodPitchSource,
     density_kg_m3: 1000,
     orthotropic: woodSet(20, 1.45),
     sources: {
@@ -78,6 +88,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     E_GPa: 13.0,
     G_GPa: 0.95,
     poisson: 0.37,
+    pitch_cents_per_c: -2,
+    pitch_source: woodPitchSource,
     density_kg_m3: 835,
     orthotropic: woodSet(13.0, 0.95),
     sources: {
@@ -95,6 +107,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     E_GPa: 11.5,
     G_GPa: 0.85,
     poisson: 0.37,
+    pitch_cents_per_c: -2,
+    pitch_source: woodPitchSource,
     density_kg_m3: 745,
     orthotropic: woodSet(11.5, 0.85),
     sources: {
@@ -111,6 +125,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     kind: 'metal',
     E_GPa: 68.9,
     poisson: 0.33,
+    pitch_cents_per_c: -0.4,
+    pitch_source: aluminiumPitchSource,
     density_kg_m3: 2700,
     sources: { E: "producers' data sheets (published)", G: 'E/(2(1+ν)) (isotropic)', density: "producers' data sheets (published)", poisson: "producers' data sheets (published)" },
   },
@@ -120,6 +136,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     kind: 'metal',
     E_GPa: 73.1,
     poisson: 0.33,
+    pitch_cents_per_c: -0.4,
+    pitch_source: aluminiumPitchSource,
     density_kg_m3: 2780,
     sources: { E: "producers' data sheets (published)", G: 'E/(2(1+ν)) (isotropic)', density: 'from memory', poisson: 'from memory' },
   },
@@ -129,6 +147,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     kind: 'metal',
     E_GPa: 205,
     poisson: 0.29,
+    pitch_cents_per_c: -0.2,
+    pitch_source: 'from memory: the modulus falls about 0.025 % per °C (f ∝ √E)',
     density_kg_m3: 7850,
     sources: { E: '200–210 GPa (from memory); mid value', G: 'E/(2(1+ν)) (isotropic)', density: 'from memory', poisson: 'from memory' },
   },
@@ -138,6 +158,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     kind: 'metal',
     E_GPa: 193,
     poisson: 0.29,
+    pitch_cents_per_c: -0.35,
+    pitch_source: 'from memory: the modulus falls about 0.04 % per °C (f ∝ √E)',
     density_kg_m3: 8000,
     sources: { E: 'from memory', G: 'E/(2(1+ν)) (isotropic)', density: 'from memory', poisson: 'from memory' },
   },
@@ -147,6 +169,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     kind: 'metal',
     E_GPa: 110,
     poisson: 0.35,
+    pitch_cents_per_c: -0.35,
+    pitch_source: 'from memory: the modulus falls about 0.04 % per °C (f ∝ √E)',
     density_kg_m3: 8530,
     sources: { E: 'from memory', G: 'E/(2(1+ν)) (isotropic)', density: 'from memory', poisson: 'from memory' },
   },
@@ -156,6 +180,8 @@ export const materialPresets: readonly MaterialPreset[] = [
     kind: 'metal',
     E_GPa: 110,
     poisson: 0.34,
+    pitch_cents_per_c: -0.35,
+    pitch_source: 'from memory: the modulus falls about 0.04 % per °C (f ∝ √E)',
     density_kg_m3: 8800,
     sources: { E: "producers' data sheets (published)", G: 'E/(2(1+ν)) (isotropic)', density: "producers' data sheets (published)", poisson: "producers' data sheets (published)" },
   },

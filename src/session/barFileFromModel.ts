@@ -27,7 +27,7 @@ function fileProfileMm(bar: BarFile): ThicknessProfile {
  * `now`'s; stations are `now`'s own, shifted by the trim, so the file never adds wood; the
  * material is `now`'s (the maker's guess, which the session keeps calibrating).
  */
-export function barFileFromModel(now: BarFile, nowModel: BarModel, afterModel: BarModel): BarFile {
+export function barFileFromModel(now: BarFile, nowModel: BarModel, afterModel: BarModel, depthFactor = 1): BarFile {
   const shorteningMm = Math.max(0, roundTo((nowModel.length - afterModel.length) / mm, 0.01));
   const lengthMm = now.length_mm - shorteningMm;
   const bar: BarFile = { ...structuredClone(now), length_mm: lengthMm };
@@ -46,8 +46,9 @@ export function barFileFromModel(now: BarFile, nowModel: BarModel, afterModel: B
     const p = Number((grid[j]! / mm).toFixed(9));
     if (p <= trimMm + 1e-9 || p >= now.length_mm - trimMm - 1e-9) continue;
     const cap = thicknessAt(recorded, p);
-    const depth = Math.max(0, thicknessAt(nowModel.profile, p * mm) - thicknessAt(afterModel.profile, p * mm - modelTrim)) / mm;
-    const planned = roundTo(Math.ceil((cap - depth) / 0.01 - 1e-6) * 0.01, 0.01);
+    const depth = (depthFactor * Math.max(0, thicknessAt(nowModel.profile, p * mm) - thicknessAt(afterModel.profile, p * mm - modelTrim))) / mm;
+    // A guard: a record far thicker than the bar really is must not be written below 2 % of the blank.
+    const planned = Math.max(roundTo(0.02 * now.section.thickness_mm, 0.01), roundTo(Math.ceil((cap - depth) / 0.01 - 1e-6) * 0.01, 0.01));
     push(p - trimMm, depth < 0.005 || planned >= cap - 1e-9 ? cap : planned);
   }
   const last = thicknessAt(recorded, now.length_mm - trimMm);
@@ -60,15 +61,16 @@ export function barFileFromModel(now: BarFile, nowModel: BarModel, afterModel: B
 /**
  * The shape the maker will really have after cutting `after` (a bar file) from `now` (the bar
  * file as recorded): the estimated shape now (`nowModel`) minus the depth the two files differ by,
- * at `after`'s stations — so predictions follow the rounded file, not the unrounded plan.
+ * at `after`'s stations (times `handScale`, how deep the maker's cuts run against the file) — so
+ * predictions follow the rounded file, not the unrounded plan.
  */
-export function shapeAfterFile(now: BarFile, nowModel: BarModel, after: BarFile): BarModel {
+export function shapeAfterFile(now: BarFile, nowModel: BarModel, after: BarFile, handScale = 1): BarModel {
   if (now.section.shape !== 'rect' || !after.profile_mm) return { ...nowModel, length: after.length_mm * mm, profile: uniformProfile(after.length_mm * mm, nowModel.profile.thicknesses[0]!) };
   const recorded = fileProfileMm(now);
   const trimMm = (now.length_mm - after.length_mm) / 2;
   const positions = Float64Array.from(after.profile_mm, ([x]) => x * mm);
   const thicknesses = Float64Array.from(after.profile_mm, ([x, t]) => {
-    const depth = Math.max(0, thicknessAt(recorded, x + trimMm) - t);
+    const depth = handScale * Math.max(0, thicknessAt(recorded, x + trimMm) - t);
     return thicknessAt(nowModel.profile, (x + trimMm) * mm) - depth * mm;
   });
   return { ...nowModel, length: after.length_mm * mm, profile: { positions, thicknesses } };

@@ -7,6 +7,10 @@ import { sessionShapes } from './sessionShapes.ts';
 import { uniformModelAllowanceCents } from './characterizeBlank.ts';
 import { hzToAbsoluteCents, type PartialEvaluation } from './partialModel.ts';
 import { sessionLogWarnings } from './sessionLogWarnings.ts';
+import { materialPitchPrior, sessionTemperature, type SessionTemperature } from './sessionTemperature.ts';
+import { warmBarMinutes, warmReadings, type WarmReading } from './warmReadings.ts';
+import type { LotPrior } from './lotPrior.ts';
+import { thicknessAt } from '../section/ThicknessProfile.ts';
 
 /** A measurement set aside because no plausible model explains it. */
 export interface MeasurementFlag {
@@ -34,8 +38,11 @@ export interface CalibratedStep {
   /** The step's estimated real shape in SI (measured thicknesses and fitted cut depths applied), with the calibrated moduli. */
   readonly model: BarModel;
   readonly depth: number;
+  /** The readings projected to the playing temperature (Hz): what the calibration fits. */
   readonly measuredHz: readonly number[];
-  /** The calibrated model's partials for this shape (Hz), as many as measured. */
+  /** The readings as taken (Hz), at the step's air temperature. */
+  readonly readHz: readonly number[];
+  /** The calibrated model's partials for this shape at the playing temperature (Hz), as many as measured. */
   readonly fittedHz: number[];
   /** Measured − fitted, cents; null where the measurement was set aside. */
   readonly residualCents: (number | null)[];
@@ -68,12 +75,38 @@ export interface SessionCalibration {
   readonly modes: number;
   readonly priors: CalibrationPriors;
   readonly measurementSigmaCents: number;
+  /** How the readings were moved to the playing temperature (the coefficient, learnt or given). */
+  readonly temperature: SessionTemperature;
+  /** Readings taken while the bar was warm from a cut (set aside when a later reading of the shape governs). */
+  readonly warm: WarmReading[];
+  /** The lot's prior the calibration started from, if any. */
+  readonly lot: LotPrior | null;
 }
 
 /** Options of calibrateSession. */
 export interface CalibrateOptions {
   readonly priors?: CalibrationPriors;
+  /** What finished bars of the same lot taught: the prior for E/ρ, G/ρ, the corrections and the temperature coefficient. */
+  readonly lot?: LotPrior | null;
 }
+
+/** One-sigma precision of a caliper reading, m: a dial caliper reads to 0.02 mm and the bar sits a little off square (common practice). */
+export const caliperSigma = 3e-5;
+/**
+ * How far a real cut departs from its plan scaled in depth, as a share of the cut's depth at the
+ * reading (barwright's own allowance: a cut placed a few mm aside or smeared by sanding is not a
+ * scaled copy of the plan, so the readings pin the cut's depth without being fitted exactly).
+ */
+export const cutFormShare = 0.1;
+
+/**
+ * One-sigma allowance for a reading taken while the bar is still warm from a cut, cents (barwright's
+ * own: a warm bar reads flat by a few cents for several minutes, common practice). Such a reading
+ * counts about a tenth as much as a cool one.
+ */
+export const warmReadingSigmaCents = 5;
+
+const warmBarMinutesText = String(warmBarMinutes);
 
 /** Most partials a calibration uses (higher ones are seldom read reliably and never tuned). */
 const maxPartials = 6;
@@ -98,7 +131,15 @@ function outOfOrderFlags(log: SessionLog): MeasurementFlag[] {
 /**
  * Calibrates the model of a session's bar to every measurement so far: E and G plus a
  * per-partial correction c_n that scales with arch depth (what the 1D model misses), by
- * Gauss–Newton least squares with Gaussian priors around the maker's guess (defaultCalibrationPriors).
+ * Gauss–Newton least squares with Gaussian priors around the maker's guess (defaultCalibrationPriors),
+ * or around what finished bars of the same lot taught (`lot`, see lotPrior). The model of the bar
+ * is evaluatePartials (partialModel.ts), the one function a finer model would replace.
+ * Every reading is first projected to the playing temperature (sessionTemperature: the material's
+ * coefficient, or the bar's own once two readings of an unchanged shape at different temperatures
+ * decide it); the coefficient's remaining error is one more fitted parameter (prior its sigma),
+ * moving each step by −δk·(T_playing − T_reading). A reading taken within 10 minutes of a cut
+ * (warmReadings) is weighted down (±5 cents), or set aside when a later cool reading of the same
+ * shape exists: that one governs.
  * Each measurement is weighed with the measurement uncertainty, the 1D model's allowance on a
  * uniform bar, and allowances for what the correction cannot capture: growing with the shape's
  * depth, and with depth × its distance in depth from the current one (the chord error of a linear
@@ -113,6 +154,7 @@ function outOfOrderFlags(log: SessionLog): MeasurementFlag[] {
 export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}): SessionCalibration {
   if (log.steps.length === 0) throw new InputError('session', 'steps', 'needs at least one measured step');
   const priors = options.priors ?? defaultCalibrationPriors;
+  const lot = options.lot ?? null;
   const sigmaMeasure = log.measurement_uncertainty_cents ?? defaultMeasurementUncertaintyCents;
   const shapes = sessionShapes(log);
   const models = shapes.map((shape) => shape.model);
@@ -121,7 +163,11 @@ export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}
   const modes = Math.min(maxPartials, Math.max(log.target.ratios.length, ...log.steps.map((s) => s.measured_hz.length)));
   const corrections = modes;
   const flags = outOfOrderFlags(log);
-  const measured = log.steps.map((step) => Array.from(hzToAbsoluteCents(step.measured_hz.slice(0, modes))));
+  const warm = warmReadings(log);
+  const temperature = sessionTemperature(log, lot?.pitch ?? materialPitchPrior(log), warm);
+  // Every reading projected to the playing temperature before it is fitted.
+  const measured = log.steps.map((step, k) => Array.from(hzToAbsoluteCents(step.measured_hz.slice(0, modes)), (c) => c + temperature.shiftCents[k]!));
+  const warmAt = (k: number): WarmReading | undefined => warm.find((w) => w.step === k + 1);
   const sigmas = log.steps.map((_, k) =>
     measured[k]!.map(() => {
       const depth = depthOf(models[k]!);
@@ -129,35 +175,54 @@ export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}
       // them its linear form errs most, like the error of a chord: ∝ depth·(distance to now).
       const form = priors.correctionFormSigma * centsPerDepth * depth * Math.abs(depthNow - depth);
       const remainder = priors.modelFormSigma * centsPerDepth * depth;
-      return Math.sqrt(sigmaMeasure ** 2 + uniformModelAllowanceCents ** 2 + form ** 2 + remainder ** 2);
+      const heat = warmAt(k) ? warmReadingSigmaCents : 0;
+      return Math.sqrt(sigmaMeasure ** 2 + uniformModelAllowanceCents ** 2 + form ** 2 + remainder ** 2 + heat ** 2);
     }),
   );
   // One depth scale per cut recorded as planned (shared by every later step that inherits it).
   const cutIndex = new Map<number, number>();
   for (const shape of shapes) for (const removal of shape.removals) if (!cutIndex.has(removal.cut)) cutIndex.set(removal.cut, 2 + corrections + cutIndex.size);
-  const size = 2 + corrections + cutIndex.size;
+  // The coefficient's own error, δk (cents per °C), moves every projected reading by −δk·(T_playing − T_reading): one parameter.
+  const away = temperature.readingC.map((t) => (t === null ? 0 : temperature.playingC - t));
+  const temperatureIndex = away.some((d) => d !== 0) ? 2 + corrections + cutIndex.size : null;
+  const size = 2 + corrections + cutIndex.size + (temperatureIndex === null ? 0 : 1);
   const guess = models[0]!.material;
   const unit = (i: number): number[] => Array.from({ length: size }, (_, j) => (j === i ? 1 : 0));
+  const youngPrior = lot ? { mean: lot.lnSpecificYoung.mean + Math.log(guess.density), sigma: lot.lnSpecificYoung.sigma } : { mean: Math.log(guess.youngModulus), sigma: priors.lnYoungSigma };
+  const shearPrior = lot ? { mean: lot.lnSpecificShear.mean + Math.log(guess.density), sigma: lot.lnSpecificShear.sigma } : { mean: Math.log(guess.shearModulus), sigma: priors.lnShearSigma };
+  const correctionPrior = (n: number): { mean: number; sigma: number } => lot?.corrections[n] ?? { mean: 0, sigma: priors.correctionSigma };
   const linearPriors: LinearPrior[] = [
-    { coefficients: unit(0), mean: Math.log(guess.youngModulus), sigma: priors.lnYoungSigma },
-    { coefficients: unit(1), mean: Math.log(guess.shearModulus), sigma: priors.lnShearSigma },
-    ...Array.from({ length: corrections }, (_, n) => ({ coefficients: unit(2 + n), mean: 0, sigma: priors.correctionSigma })),
+    { coefficients: unit(0), ...youngPrior },
+    { coefficients: unit(1), ...shearPrior },
+    ...Array.from({ length: corrections }, (_, n) => ({ coefficients: unit(2 + n), ...correctionPrior(n) })),
     ...[...cutIndex.values()].map((index) => ({ coefficients: unit(index), mean: 0, sigma: priors.plannedCutSigma })),
+    ...(temperatureIndex === null ? [] : [{ coefficients: unit(temperatureIndex), mean: 0, sigma: temperature.sigma }]),
   ];
-  const excluded = (k: number, n: number): boolean => flags.some((f) => f.step === k + 1 && f.partial === n + 1);
+  // Caliper readings weigh the caliper's precision and how far a real cut departs from a scaled copy of its plan.
+  const readingsOf = (shape: (typeof shapes)[number]): { x: number; thickness: number; sigma: number }[] => {
+    const last = shape.removals[shape.removals.length - 1];
+    return shape.readings!.map((reading) => {
+      const depth = last ? thicknessAt({ positions: shape.model.profile.positions, thicknesses: last.values }, reading.x) : 0;
+      return { ...reading, sigma: Math.hypot(caliperSigma, cutFormShare * depth) };
+    });
+  };
+  // A warm reading that a later, cool reading of the same shape supersedes is set aside: the later one governs.
+  const excluded = (k: number, n: number): boolean => flags.some((f) => f.step === k + 1 && f.partial === n + 1) || (warmAt(k)?.superseded_by ?? null) !== null;
   const shapesFor = (): FitShape[] =>
     shapes.map((shape, k) => ({
       model: shape.model,
       measuredCents: measured[k]!.map((c, n) => (excluded(k, n) ? null : c)),
       sigmaCents: sigmas[k]!,
       removals: shape.removals.map((removal) => ({ parameter: cutIndex.get(removal.cut)!, values: removal.values })),
+      ...(temperatureIndex === null || away[k] === 0 ? {} : { offsets: [{ parameter: temperatureIndex, cents: -away[k]! }] }),
+      ...(shape.readings ? { thicknessReadings: readingsOf(shape) } : {}),
     }));
   /** The nearest reading of partial n before (direction −1) or after (+1) step k that is not set aside. */
   const nearestKept = (k: number, n: number, direction: -1 | 1): number | undefined => {
     for (let j = k + direction; j >= 0 && j < measured.length; j += direction) if (measured[j]![n] !== undefined && !excluded(j, n)) return measured[j]![n];
     return undefined;
   };
-  let start = [Math.log(guess.youngModulus), Math.log(guess.shearModulus), ...new Array<number>(size - 2).fill(0)];
+  let start = [youngPrior.mean, shearPrior.mean, ...Array.from({ length: corrections }, (_, n) => correctionPrior(n).mean), ...new Array<number>(size - 2 - corrections).fill(0)];
   let fit: FitResult = fitModuli({ shapes: shapesFor(), corrections, priors: linearPriors, start, lnRatioRange: ratioRange });
   for (let round = 0; round < maxFlagged; round++) {
     let worst: { k: number; n: number; z: number; predictive: number } | null = null;
@@ -196,21 +261,32 @@ export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}
   const steps: CalibratedStep[] = fit.models.map((model, k) => ({
     model: { ...model, material: { ...model.material, youngModulus, shearModulus } },
     depth: fit.depths[k]!,
-    measuredHz: log.steps[k]!.measured_hz,
-    fittedHz: Array.from(fit.fittedCents[k]!.subarray(0, log.steps[k]!.measured_hz.length), (c) => 2 ** (c / 1200)),
+    measuredHz: log.steps[k]!.measured_hz.map((hz) => hz * 2 ** (temperature.shiftCents[k]! / 1200)),
+    readHz: log.steps[k]!.measured_hz,
+    fittedHz: Array.from(fit.fittedCents[k]!.subarray(0, log.steps[k]!.measured_hz.length), (c) => 2 ** ((c + (temperatureIndex === null ? 0 : p[temperatureIndex]! * away[k]!)) / 1200)),
     residualCents: fit.residualCents[k]!,
     sigmaCents: sigmas[k]!,
   }));
   const cutDepths: CutDepthEstimate[] = [...cutIndex.entries()].map(([step, index]) => ({ step, scale: p[index]!, sigma: Math.sqrt(fit.covariance[index]![index]!) }));
   const warnings = [...sessionLogWarnings(log)];
-  if (Math.abs(p[0]! - Math.log(guess.youngModulus)) > 3 * priors.lnYoungSigma)
-    warnings.push(`the calibrated E (${(youngModulus / 1e9).toFixed(2)} GPa) is far from the starting guess (${(guess.youngModulus / 1e9).toFixed(2)} GPa): check the bar file's dimensions, density and material`);
+  if (Math.abs(p[0]! - youngPrior.mean) > 3 * youngPrior.sigma)
+    warnings.push(
+      lot
+        ? `the calibrated E (${(youngModulus / 1e9).toFixed(2)} GPa) is far from what lot ${lot.lot} taught (${(Math.exp(youngPrior.mean) / 1e9).toFixed(2)} GPa at this density): is this bar really from that lot?`
+        : `the calibrated E (${(youngModulus / 1e9).toFixed(2)} GPa) is far from the starting guess (${(guess.youngModulus / 1e9).toFixed(2)} GPa): check the bar file's dimensions, density and material`,
+    );
+  for (const w of warm)
+    warnings.push(
+      w.superseded_by !== null
+        ? `step ${w.step} was read ${w.minutes_after_cut.toFixed(0)} minutes after the cut (a warm bar reads flat): step ${w.superseded_by}'s later reading of the same shape governs`
+        : `step ${w.step} was read ${w.minutes_after_cut.toFixed(0)} minutes after the cut: a warm bar reads flat, so it counts little; strike it again when it has rested ${warmBarMinutesText} minutes`,
+    );
   p.slice(2, 2 + corrections).forEach((c, n) => {
     if (Math.abs(c) > 3 * priors.correctionSigma && depthNow > 0)
       warnings.push(`partial ${n + 1} needs a ${(100 * c * depthNow).toFixed(1)} % correction at this depth, beyond the 2–3 % the 1D model usually misses: a crack, or cuts not as recorded?`);
   });
   for (const estimate of cutDepths)
-    if (Math.abs(estimate.scale) > 2 * priors.plannedCutSigma)
+    if (Math.abs(estimate.scale) > 2 * priors.plannedCutSigma && !log.steps[estimate.step - 1]?.measured_thickness_mm?.length)
       warnings.push(`the cut before step ${estimate.step} reads as about ${(100 * Math.abs(estimate.scale)).toFixed(0)} % ${estimate.scale > 0 ? 'deeper' : 'shallower'} than recorded: measure the thicknesses at a few stations and record them with the step`);
   return {
     youngModulus,
@@ -229,5 +305,8 @@ export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}
     modes,
     priors,
     measurementSigmaCents: sigmaMeasure,
+    temperature,
+    warm,
+    lot,
   };
 }

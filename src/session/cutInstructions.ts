@@ -2,7 +2,7 @@ import type { BarFile } from '../fileFormats/barFile.ts';
 import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
 
 /** Thickness (mm) of a bar file at a position (mm): its profile interpolated, or the blank's; 0 off the bar. */
-function thicknessAtMm(bar: BarFile, position: number): number {
+export function fileThicknessMm(bar: BarFile, position: number): number {
   if (bar.section.shape !== 'rect') return 0;
   if (position < -1e-9 || position > bar.length_mm + 1e-9) return 0;
   const profile = bar.profile_mm;
@@ -62,8 +62,8 @@ export function cutInstructions(now: BarFile, after: BarFile): CutInstructions {
   const rect = now.section.shape === 'rect';
   if (rect) {
     for (const x of [...positions].sort((a, b) => a - b)) {
-      const before = thicknessAtMm(now, x);
-      const later = thicknessAtMm(after, x - offset);
+      const before = fileThicknessMm(now, x);
+      const later = fileThicknessMm(after, x - offset);
       const remove = before - later;
       if (remove >= smallestListedDepthMm - 1e-9) stations.push({ position_mm: round(x, 2), thickness_now_mm: round(before, 2), thickness_after_mm: round(later, 2), remove_mm: round(remove, 2) });
     }
@@ -73,7 +73,7 @@ export function cutInstructions(now: BarFile, after: BarFile): CutInstructions {
   let open: number | null = null;
   let previous = 0;
   for (const x of sorted) {
-    const cutHere = rect && thicknessAtMm(now, x) - thicknessAtMm(after, x - offset) >= smallestListedDepthMm - 1e-9;
+    const cutHere = rect && fileThicknessMm(now, x) - fileThicknessMm(after, x - offset) >= smallestListedDepthMm - 1e-9;
     if (cutHere && open === null) open = previous;
     if (!cutHere && open !== null) {
       regions.push([round(open, 1), round(x, 1)]);
@@ -97,8 +97,8 @@ function sketchOf(now: BarFile, after: BarFile, offset: number, maxDepth: number
     for (let c = 0; c < sketchColumns; c++) {
       const x = columnX(c);
       const inside = x >= offset && x <= now.length_mm - offset;
-      const before = thicknessAtMm(now, x);
-      const later = inside ? thicknessAtMm(after, x - offset) : 0;
+      const before = fileThicknessMm(now, x);
+      const later = inside ? fileThicknessMm(after, x - offset) : 0;
       line += depth < later ? '#' : depth < before ? 'x' : ' ';
     }
     lines.push(`${line}|`);
@@ -107,7 +107,7 @@ function sketchOf(now: BarFile, after: BarFile, offset: number, maxDepth: number
   for (let c = 0; c < sketchColumns; c++) {
     const x = columnX(c);
     const inside = x >= offset && x <= now.length_mm - offset;
-    const removed = inside ? thicknessAtMm(now, x) - thicknessAtMm(after, x - offset) : thicknessAtMm(now, x);
+    const removed = inside ? fileThicknessMm(now, x) - fileThicknessMm(after, x - offset) : fileThicknessMm(now, x);
     marks += !inside ? '>' : maxDepth > 0 && removed >= 0.5 * maxDepth ? '^' : removed >= smallestListedDepthMm ? '-' : ' ';
   }
   lines.push(marks.trimEnd());

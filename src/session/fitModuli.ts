@@ -3,6 +3,7 @@ import { bendingSensitivities } from '../modes/bendingSensitivities.ts';
 import { archDepth } from './archDepth.ts';
 import { denseCholeskyInPlace, denseCholeskySolveInPlace, symmetricPositiveInverse } from '../eigen/denseCholesky.ts';
 import { centsPerNeper, evaluatePartials, type PartialEvaluation } from './partialModel.ts';
+import { thicknessAt } from '../section/ThicknessProfile.ts';
 
 /**
  * A thickness removal whose size is a fit parameter: the shape's thickness at each station is
@@ -23,6 +24,10 @@ export interface FitShape {
   /** One-sigma uncertainty of each measurement, cents. */
   readonly sigmaCents: readonly number[];
   readonly removals?: readonly FitRemoval[];
+  /** Offsets added to every partial of this shape: p[parameter] · cents (e.g. a temperature coefficient's error times the reading's distance from the playing temperature). */
+  readonly offsets?: readonly { readonly parameter: number; readonly cents: number }[];
+  /** Thicknesses measured on this shape (m, at x m), each with its one-sigma (m): fitted beside the partials through the removals. */
+  readonly thicknessReadings?: readonly { readonly x: number; readonly thickness: number; readonly sigma: number }[];
 }
 
 /** A Gaussian prior on a linear combination of the parameters: (coefficients · p − mean)/sigma. */
@@ -33,8 +38,8 @@ export interface LinearPrior {
 }
 
 /**
- * A fit problem: parameters p = [ln E, ln G, c_1 … c_m, then any removal sizes] (E, G in Pa; c_n
- * the per-partial corrections, fraction of frequency per unit arch depth).
+ * A fit problem: parameters p = [ln E, ln G, c_1 … c_m, then any removal sizes and offset
+ * parameters] (E, G in Pa; c_n the per-partial corrections, fraction of frequency per unit arch depth).
  */
 export interface FitProblem {
   readonly shapes: readonly FitShape[];
@@ -113,11 +118,14 @@ function evaluateShape(shape: FitShape, p: readonly number[], corrections: numbe
   const rows: number[][] = [];
   for (let n = 0; n < evaluation.cents.length; n++) {
     const correction = n < corrections ? p[2 + n]! : 0;
-    predicted.push(evaluation.cents[n]! + centsPerNeper * correction * depth);
+    let offset = 0;
+    for (const item of shape.offsets ?? []) offset += p[item.parameter]! * item.cents;
+    predicted.push(evaluation.cents[n]! + centsPerNeper * correction * depth + offset);
     const row = new Array<number>(size).fill(0);
     row[0] = evaluation.perLnYoung[n]!;
     row[1] = evaluation.perLnShear[n]!;
     if (n < corrections) row[2 + n] = centsPerNeper * depth;
+    for (const item of shape.offsets ?? []) row[item.parameter]! += item.cents;
     if (removals.length > 0) {
       const perThickness = sensitivities[n]!;
       const scale = centsPerNeper / (2 * evaluation.solution.eigenvalues[n]!);
@@ -159,7 +167,8 @@ function inverseOfNormal(normal: readonly (readonly number[])[]): number[][] {
  * Fits E, G, optional per-partial corrections and optional removal sizes to the measured
  * partials of one or more shapes of a bar, by Gauss–Newton on the cents residuals with Gaussian
  * (Tikhonov) priors: predicted_n(shape) = cents_n(E, G; shape with removals) +
- * (1200/ln 2)·c_n·depth(shape). Each iteration solves every shape once (evaluatePartials; exact
+ * (1200/ln 2)·c_n·depth(shape) + Σ offsets, and caliper readings against the shape's thickness
+ * with its removals. Each iteration solves every shape once (evaluatePartials; exact
  * moduli derivatives) and, for shapes with fitted removals, takes their derivatives from the exact
  * eigenvalue sensitivities. ln(E/G) is kept in `lnRatioRange`. Returns the fit, its covariance and
  * each measurement's leverage (for leave-one-out checks).
@@ -201,6 +210,20 @@ export function fitModuli(problem: FitProblem): FitResult {
           for (let j = 0; j < size; j++) normal[i]![j]! += (a * row[j]!) / sigma;
         }
       });
+    });
+    shapes.forEach((shape, k) => {
+      // Caliper readings: the shape's thickness there, less each fitted removal (linear in its size).
+      const state = states[k]!;
+      for (const reading of shape.thicknessReadings ?? []) {
+        const residual = (reading.thickness - thicknessAt(state.model.profile, reading.x)) / reading.sigma;
+        const row = new Array<number>(size).fill(0);
+        for (const removal of shape.removals ?? []) row[removal.parameter]! -= thicknessAt({ positions: shape.model.profile.positions, thicknesses: removal.values }, reading.x) / reading.sigma;
+        for (let i = 0; i < size; i++) {
+          if (row[i] === 0) continue;
+          gradient[i]! += row[i]! * residual;
+          for (let j = 0; j < size; j++) normal[i]![j]! += row[i]! * row[j]!;
+        }
+      }
     });
     for (const prior of priors) {
       let value = 0;

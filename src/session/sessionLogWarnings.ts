@@ -6,14 +6,12 @@ import { thicknessAt } from '../section/ThicknessProfile.ts';
 const addedSlackMm = 0.2;
 /** Length (mm) by which a later step may exceed an earlier one (steel rule slack). */
 const longerSlackMm = 0.5;
-/** Room-temperature spread (°C) above which a warning is given. */
-const temperatureSpreadC = 5;
 
 /**
  * Plain warnings about a session log that do not stop a calibration: a step recorded with more
- * wood than the one before (the shape was recorded wrongly: wood cannot be put back), room
- * temperatures far apart (wood and its moisture move with the weather, and pitch with them), and a
- * last step with fewer partials than the target tunes.
+ * wood than the one before (the shape was recorded wrongly: wood cannot be put back), some steps
+ * with an air temperature and others without (those are taken as read at the playing temperature),
+ * and a last step with fewer partials than the target tunes.
  */
 export function sessionLogWarnings(log: SessionLog): string[] {
   const warnings: string[] = [];
@@ -34,9 +32,9 @@ export function sessionLogWarnings(log: SessionLog): string[] {
     }
     if (worst > addedSlackMm) warnings.push(`step ${k + 1}'s bar is ${worst.toFixed(2)} mm thicker than step ${k}'s at ${(where * 1e3).toFixed(0)} mm: wood cannot be put back; check the recorded shape`);
   }
-  const temperatures = log.steps.map((s) => s.air_temperature_c).filter((t): t is number => t !== undefined);
-  if (temperatures.length > 1 && Math.max(...temperatures) - Math.min(...temperatures) > temperatureSpreadC)
-    warnings.push(`the steps were measured between ${Math.min(...temperatures)} and ${Math.max(...temperatures)} °C: wood's stiffness and moisture change with the room, so compare measurements taken in similar conditions`);
+  const recorded = log.steps.filter((s) => s.air_temperature_c !== undefined).length;
+  if (recorded > 0 && recorded < log.steps.length)
+    warnings.push(`${log.steps.length - recorded} of ${log.steps.length} steps give no air_temperature_c: they are taken as read at the playing temperature`);
   const last = log.steps[log.steps.length - 1];
   if (last && last.measured_hz.length < log.target.ratios.length)
     warnings.push(`the last step measured ${last.measured_hz.length} partial${last.measured_hz.length === 1 ? '' : 's'} but the target tunes ${log.target.ratios.length}: the others are taken from the calibrated model`);

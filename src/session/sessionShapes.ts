@@ -13,8 +13,19 @@ export interface SessionShape {
    * `scale · values` (m per unit scale) per cut, `cut` the step number (1-based) of that cut.
    */
   readonly removals: { cut: number; values: Float64Array }[];
-  /** True when the shape is known outright (the first step, a cut recorded as done, or thicknesses measured). */
+  /** True when the shape is known outright (the first step, a tube or rod, or a cut recorded as done). */
   readonly anchored: boolean;
+  /**
+   * Caliper readings of an unanchored step (`measured_thickness_mm`, in m on this step's frame):
+   * the calibration fits the cut depths to them as well as to the partials. Absent otherwise.
+   */
+  readonly readings?: { x: number; thickness: number }[];
+}
+
+/** How deep a rect shape is cut below its blank at a position (m): the arch caliper readings scale on a shape known outright. */
+function archDepthOf(model: BarModel): (x: number) => number {
+  const blank = model.section.shape === 'rect' ? model.section.thickness : 0;
+  return (x) => Math.max(0, blank - thicknessAt(model.profile, x));
 }
 
 /** Stations closer than this (m) are merged. */
@@ -29,7 +40,9 @@ function profileOf(model: BarModel): ThicknessProfile {
  * the maker recorded; a step whose cut is recorded as planned (the default) may in truth have
  * removed more or less, so its cut — the difference between the previous bar file and this one —
  * gets a fitted depth scale, and the error carries on into later steps until one is anchored (a
- * cut recorded `as-done`, or thicknesses measured at stations, which correct the shape directly).
+ * cut recorded `as-done`, with any caliper readings correcting its arch — see
+ * shapeWithMeasuredThicknesses). Caliper readings after a cut recorded as planned stay with the
+ * step (`readings`): the calibration fits the cut depths to them beside the partials.
  * Positions in each step's own frame (shortening trims both ends equally). All models carry the
  * first step's material (the maker's guess).
  */
@@ -42,9 +55,11 @@ export function sessionShapes(log: SessionLog): SessionShape[] {
   log.steps.forEach((step, k) => {
     const file = recorded[k]!;
     const rect = file.section.shape === 'rect';
-    const anchored = k === 0 || !rect || step.cut?.made === 'as-done' || (step.thickness_measured_mm?.length ?? 0) > 0;
-    if (anchored) {
-      const model = shapeWithMeasuredThicknesses(file, step.thickness_measured_mm);
+    const measured = (step.measured_thickness_mm?.length ?? 0) > 0;
+    if (k === 0 || !rect || step.cut?.made === 'as-done') {
+      // Known outright: the first step, a tube or rod, or a cut recorded as done (the file is the shape),
+      // corrected by caliper readings taken with it.
+      const model = shapeWithMeasuredThicknesses(file, step.measured_thickness_mm, rect ? archDepthOf(file) : undefined);
       anchor = k;
       anchorShape = model;
       shapes.push({ model, removals: [], anchored: true });
@@ -63,6 +78,7 @@ export function sessionShapes(log: SessionLog): SessionShape[] {
       const correction = thicknessAt(anchorShape.profile, x + shift(anchor)) - thicknessAt(anchorRecorded, x + shift(anchor));
       return Math.max(1e-5, thicknessAt(file.profile, x) + correction);
     });
+    const carried: BarModel = { ...file, profile: { positions: grid, thicknesses } };
     const removals: SessionShape['removals'] = [];
     for (let j = anchor + 1; j <= k; j++) {
       const before = recorded[j - 1]!.profile;
@@ -70,7 +86,11 @@ export function sessionShapes(log: SessionLog): SessionShape[] {
       const values = Float64Array.from(grid, (x) => Math.max(0, thicknessAt(before, x + shift(j - 1)) - thicknessAt(after, x + shift(j))));
       if (values.some((v) => v > 1e-7)) removals.push({ cut: j + 1, values });
     }
-    shapes.push({ model: { ...file, profile: { positions: grid, thicknesses } }, removals, anchored: false });
+    // Caliper readings after a cut recorded as planned tell how deep the cuts really went where they
+    // were taken: the calibration fits the cut depths to them (a hand is not a scaled plan, so the
+    // readings are weighed, not imposed between them).
+    const readings = measured ? step.measured_thickness_mm!.map(([x, t]) => ({ x: Math.min(file.length, Math.max(0, x * 1e-3)), thickness: t * 1e-3 })) : undefined;
+    shapes.push({ model: carried, removals, anchored: false, ...(readings ? { readings } : {}) });
   });
   return shapes;
 }

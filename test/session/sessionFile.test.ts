@@ -63,7 +63,7 @@ describe('parseSessionFile', () => {
     const value = JSON.parse(readFileSync(new URL('../../fixtures/f3-workshop.session.json', import.meta.url), 'utf8'));
     const log = parseSessionFile(value, 'f3-workshop.session.json');
     expect(log.steps.length).toBeGreaterThanOrEqual(3);
-    expect(log.steps[1]!.thickness_measured_mm?.length).toBeGreaterThan(0);
+    expect(log.steps[1]!.measured_thickness_mm?.length).toBeGreaterThan(0);
     expect(log.steps[1]!.cut?.made).toBe('as-done');
     // F3 at A4 = 442: 442 · 2^((53 − 69)/12) (MIDI 1.0 numbering, equal temperament).
     expect(sessionTargetHz(log.target)[0]).toBeCloseTo(442 * 2 ** (-16 / 12), 9);

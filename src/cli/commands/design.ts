@@ -2,6 +2,8 @@ import { designBar, type DesignRequest, parseToleranceList, profileTemplateSvg, 
 import { InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
+import { sessionSummary } from '../readSession.ts';
+import { calibratedDesign, calibrationNote } from '../../session/index.ts';
 
 const positive = (n: number): string | null => (n > 0 ? null : 'must be greater than 0');
 const nonNegative = (n: number): string | null => (n >= 0 ? null : 'must be 0 or more');
@@ -13,7 +15,7 @@ export const designCommand: Command = {
   usage:
     'barwright design BAR (--note NAME | --hz F) [--a4 HZ] [--ratios 1:4:10|1:4|1:3|1:3:6|fundamental|A:B:C] [--tolerance-cents 2,5,15] ' +
     '[--min-thickness-mm T] [--uncut-end-mm L] [--max-slope S] [--tool-radius-mm R] [--allow-shortening [--max-shortening-mm M]] ' +
-    '[--theory timoshenko|euler-bernoulli] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
+    '[--theory timoshenko|euler-bernoulli] [--session SESSION [--lots LOTS]] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       note: { type: 'string' },
@@ -28,6 +30,8 @@ export const designCommand: Command = {
       'allow-shortening': { type: 'boolean' },
       'max-shortening-mm': { type: 'string' },
       theory: { type: 'string' },
+      session: { type: 'string' },
+      lots: { type: 'string' },
       out: { type: 'string' },
       template: { type: 'string' },
       table: { type: 'string' },
@@ -65,7 +69,10 @@ export const designCommand: Command = {
       limits,
       theory,
     };
-    const result = designBar(bar, request, {}, 'command line');
+    if (values.lots !== undefined && values.session === undefined) throw new InputError('command line', '--lots', 'goes with --session (the lot of the session’s bar)');
+    const calibrated = values.session === undefined ? null : await sessionSummary(values.session, values.lots, io);
+    if (calibrated && theory !== 'timoshenko') throw new InputError('command line', '--theory', 'a session calibrates the timoshenko model: leave --theory out with --session');
+    const result = calibrated ? calibratedDesign(bar, request, calibrated.summary, {}, 'command line') : designBar(bar, request, {}, 'command line');
     const table = stationTable(result.bar);
     const map = values.map ? whereToCutMap(result.bar, { theory }) : undefined;
     const subtitle = `${result.note ?? `${result.target_hz[0]} Hz`} at A4 = ${result.a4_hz} Hz, ratios ${result.ratios.join(':')}, ${result.bar.length_mm} mm × ${result.bar.section.shape === 'rect' ? result.bar.section.width_mm : 0} mm, blank ${result.bar.section.shape === 'rect' ? result.bar.section.thickness_mm : 0} mm`;
@@ -78,6 +85,7 @@ export const designCommand: Command = {
     }
     const lines: string[] = [];
     lines.push(`${bar.label ?? path}: undercut for ${subtitle}`);
+    if (calibrated) lines.push(`Calibrated: ${calibrationNote(calibrated.summary, values.session!)}`);
     lines.push(result.feasible ? 'Feasible: every partial within tolerance.' : `NOT FEASIBLE — ${result.reason ?? 'targets not reached'}`);
     lines.push('');
     lines.push(

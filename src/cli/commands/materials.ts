@@ -14,10 +14,10 @@ export const materialsCommand: Command = {
       io.stdout(toJson({ presets: materialPresets }));
       return 0;
     }
-    const rows = [['preset', 'E GPa', 'G GPa', 'ν', 'ρ kg/m³', 'description']];
+    const rows = [['preset', 'E GPa', 'G GPa', 'ν', 'ρ kg/m³', 'cents/°C', 'description']];
     for (const p of materialPresets) {
       const shear = p.G_GPa ?? p.E_GPa / (2 * (1 + p.poisson));
-      rows.push([p.name, fixed(p.E_GPa, 1), `${fixed(shear, 2)}${p.G_GPa === undefined ? ' (from ν)' : ''}`, fixed(p.poisson, 2), fixed(p.density_kg_m3, 0), p.label]);
+      rows.push([p.name, fixed(p.E_GPa, 1), `${fixed(shear, 2)}${p.G_GPa === undefined ? ' (from ν)' : ''}`, fixed(p.poisson, 2), fixed(p.density_kg_m3, 0), fixed(p.pitch_cents_per_c, 2), p.label]);
     }
     const woods = materialPresets.filter((p) => p.orthotropic);
     const orthotropic = formatTable([
@@ -28,10 +28,10 @@ export const materialsCommand: Command = {
       }),
     ]);
     const sources = materialPresets.map(
-      (p) => `${p.name}:\n  E: ${p.sources.E}\n  G: ${p.sources.G}\n  density: ${p.sources.density}\n  ν: ${p.sources.poisson}${p.sources.orthotropic ? `\n  orthotropic set: ${p.sources.orthotropic}` : ''}`,
+      (p) => `${p.name}:\n  E: ${p.sources.E}\n  G: ${p.sources.G}\n  density: ${p.sources.density}\n  ν: ${p.sources.poisson}${p.sources.orthotropic ? `\n  orthotropic set: ${p.sources.orthotropic}` : ''}\n  cents/°C: ${p.pitch_source}`,
     );
     io.stdout(
-      `${formatTable(rows)}\n\nOrthotropic sets of the woods for the solid theory (GPa; radial grain: G = G_LR)\n${orthotropic}\n\nSources\n${sources.join('\n')}\n\nWood varies ±20 % from blank to blank: calibrate from the blank's measured partials.`,
+      `${formatTable(rows)}\n\nOrthotropic sets of the woods for the solid theory (GPa; radial grain: G = G_LR)\n${orthotropic}\n\nSources\n${sources.join('\n')}\n\nWood varies ±20 % from blank to blank: calibrate from the blank's measured partials. cents/°C is how the partials move as the bar warms (readings are projected to the playing temperature with it).`,
     );
     return 0;
   },

@@ -1,6 +1,7 @@
-import { InputError, parseSessionFile } from '../../fileFormats/index.ts';
+import { InputError } from '../../fileFormats/index.ts';
 import { nextCut, type NextCutResult } from '../../session/index.ts';
-import { fixed, formatTable, parseOptions, readJsonFile, toJson, type Command, type CommandIo } from '../command.ts';
+import { fixed, formatTable, parseOptions, toJson, type Command, type CommandIo } from '../command.ts';
+import { priorForSession, readLotFile, readSessionFile } from '../readSession.ts';
 
 function signed(value: number, decimals: number): string {
   const text = fixed(value, decimals);
@@ -33,14 +34,28 @@ function formatNextCut(result: NextCutResult, title: string): string {
     `Calibrated model: E ${fixed(c.E_GPa, 2)} GPa (±${fixed(c.E_uncertainty_percent, 1)} %), G ${fixed(c.G_GPa, 3)} GPa (±${fixed(c.G_uncertainty_percent, 1)} %), density ${fixed(result.calibrated_material.density_kg_m3, 0)} kg/m³`,
   );
   lines.push(`1D-model correction at this arch depth (${fixed(c.arch_depth, 2)}): ${c.correction_percent.slice(0, result.target_hz.length).map((p) => `${signed(p, 2)} %`).join(', ')}`);
+  if (c.lot) lines.push(`Started from lot ${c.lot.name}, learnt from ${c.lot.bars.join(', ')}`);
   for (const depth of c.cut_depth_percent) lines.push(`Cut before step ${depth.step} reads as ${fixed(depth.percent, 0)} % of the depth recorded (±${fixed(depth.uncertainty_percent, 0)} %)`);
+  for (const check of c.cut_from_plan)
+    lines.push(
+      `Cut before step ${check.step}, by the caliper: ${check.percent === null ? 'no planned depth at the readings' : `${fixed(check.percent, 0)} % of the planned depth`} (${check.checkpoints.map((p) => `${fixed(p.x_mm, 0)} mm ${signed(p.off_mm, 2)}`).join(', ')} mm off plan)`,
+    );
+  const t = result.temperature;
+  const projected = t.reading_temperature_c !== null && t.reading_temperature_c !== t.playing_temperature_c;
+  lines.push(
+    projected
+      ? `Readings taken at ${fixed(t.reading_temperature_c!, 1)} °C, shown at the playing temperature ${fixed(t.playing_temperature_c, 1)} °C (${signed(t.shift_cents, 1)} cents, ±${fixed(t.shift_sigma_cents, 1)}; ${fixed(t.pitch_cents_per_c, 2)} cents/°C, ${t.pitch_from === 'learnt' ? 'learnt from this bar' : t.pitch_from})`
+      : `Playing temperature ${fixed(t.playing_temperature_c, 1)} °C; coefficient ${fixed(t.pitch_cents_per_c, 2)} cents/°C (${t.pitch_from === 'learnt' ? 'learnt from this bar' : t.pitch_from})`,
+  );
+  if (result.wait_minutes > 0) lines.push(`WAIT: the last reading was taken on a bar still warm from the cut; strike it again in ${result.wait_minutes} minutes.`);
   lines.push('');
   lines.push(
     formatTable([
-      ['partial', 'target Hz', 'now Hz', 'now cents', 'after Hz', 'after cents', 'range cents', 'tolerance'],
+      ['partial', 'target Hz', ...(projected ? ['read Hz'] : []), 'now Hz', 'now cents', 'after Hz', 'after cents', 'range cents', 'tolerance'],
       ...result.target_hz.map((target, n) => [
         String(n + 1),
         fixed(target, 2),
+        ...(projected ? [result.readings_as_taken_hz[n] !== undefined ? fixed(result.readings_as_taken_hz[n]!, 2) : '—'] : []),
         fixed(result.now_hz[n]!, 2),
         signed(result.now_cents[n]!, 1),
         fixed(result.predicted_hz[n]!, 2),
@@ -65,6 +80,11 @@ function formatNextCut(result: NextCutResult, title: string): string {
       );
       lines.push(`Region${result.cut.regions_mm.length > 1 ? 's' : ''}: ${result.cut.regions_mm.map(([a, b]) => `${fixed(a, 0)}–${fixed(b, 0)} mm`).join(', ')}`);
     }
+    if (result.checkpoints.length > 0) {
+      lines.push('');
+      lines.push(`Check with the caliper after the cut (positions from the left end of the bar after it): ${result.checkpoints.map((p) => `${fixed(p.x_mm, 0)} mm → ${fixed(p.thickness_mm, 2)} mm`).join(', ')}`);
+      lines.push('Record what you measure with the next step (measured_thickness_mm): the session then uses the bar as measured.');
+    }
     lines.push('');
     lines.push('Side view (top up; # stays, x comes off, ^ deepest part of the cut, - a little):');
     lines.push(...result.cut.sketch);
@@ -87,18 +107,20 @@ function formatNextCut(result: NextCutResult, title: string): string {
 export const nextCutCommand: Command = {
   name: 'next-cut',
   summary: 'tune-and-trim: learn the bar from its session log and say where to cut next',
-  usage: 'barwright next-cut SESSION [--out BAR [--force]] [--json]',
+  usage: 'barwright next-cut SESSION [--lots LOTS] [--out BAR [--force]] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
+      lots: { type: 'string' },
       out: { type: 'string' },
       force: { type: 'boolean' },
       json: { type: 'boolean' },
     });
     if (positionals.length !== 1) throw new InputError('command line', 'SESSION', 'give exactly one session file');
     const path = positionals[0]!;
-    const raw = await readJsonFile(path, io);
-    const log = parseSessionFile(raw, path);
-    const result = nextCut(log, { source: path });
+    const log = await readSessionFile(path, io);
+    const { prior, note } = priorForSession(log, values.lots === undefined ? undefined : await readLotFile(values.lots, io));
+    const result = nextCut(log, { source: path, lot: prior });
+    if (note) result.warnings.push(note);
     if (values.out !== undefined) {
       if (result.status !== 'cut') throw new InputError('command line', '--out', `there is no cut to write (status ${result.status})`);
       await refuseOverwrite(values.out, values.force ?? false, io);

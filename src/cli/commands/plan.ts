@@ -5,6 +5,8 @@ import { type StoredKeyboardBar, type KeyboardTask, type KeyboardTaskResult, key
 import { createWorkerPool, keyboardBarWorkerUrl } from '../../instrument/index.node.ts';
 import { parseKeyboardFile, InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
+import { keyboardFileWithLots, type LotMaterialNote } from '../../session/index.ts';
+import { readLotFile } from '../readSession.ts';
 
 /** The stored plan in an output folder, when there is a readable one to resume from. */
 async function previousPlan(dir: string): Promise<Pick<KeyboardPlan, 'bars' | 'advice'> | undefined> {
@@ -50,14 +52,24 @@ function planTable(plan: KeyboardPlan): string {
   return lines.join('\n');
 }
 
+/** Which notes were planned from a lot, one line per lot. */
+function lotLines(notes: readonly LotMaterialNote[]): string {
+  const byLot = new Map<string, LotMaterialNote[]>();
+  for (const note of notes) byLot.set(note.lot, [...(byLot.get(note.lot) ?? []), note]);
+  return [...byLot.entries()]
+    .map(([lot, list]) => `Planned from lot ${lot}: ${list.map((n) => n.note).join(', ')} (E ${fixed(list[0]!.material.E_GPa, 2)} GPa, G ${fixed(list[0]!.material.G_GPa, 3)} GPa at the keyboard's density)`)
+    .join('\n');
+}
+
 /** `barwright plan KEYBOARD`: blank schedule, every bar designed, cut list and templates. */
 export const planCommand: Command = {
   name: 'plan',
   summary: 'plan a whole keyboard: blank schedule, every bar designed, cut list, 1:1 templates',
-  usage: 'barwright plan KEYBOARD [--out DIR] [--workers N] [--fresh] [--quiet] [--json]',
+  usage: 'barwright plan KEYBOARD [--lots LOTS] [--out DIR] [--workers N] [--fresh] [--quiet] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       out: { type: 'string' },
+      lots: { type: 'string' },
       workers: { type: 'string' },
       fresh: { type: 'boolean' },
       quiet: { type: 'boolean' },
@@ -65,7 +77,10 @@ export const planCommand: Command = {
     });
     if (positionals.length !== 1) throw new InputError('command line', 'KEYBOARD', 'give exactly one keyboard file');
     const path = positionals[0]!;
-    const file = parseKeyboardFile(await readJsonFile(path, io), path);
+    let file = parseKeyboardFile(await readJsonFile(path, io), path);
+    // The remaining bars of each lot are planned from what its finished bars taught.
+    let fromLots: LotMaterialNote[] = [];
+    if (values.lots !== undefined) ({ file, notes: fromLots } = keyboardFileWithLots(file, await readLotFile(values.lots, io)));
     const workers = numberOption(values.workers, 'workers', (n) => (Number.isInteger(n) && n >= 1 && n <= 16 ? null : 'must be a whole number from 1 to 16')) ?? Math.min(4, availableParallelism());
     const previous = values.out !== undefined && !values.fresh ? await previousPlan(values.out) : undefined;
     const pool = createWorkerPool<KeyboardTask, KeyboardTaskResult>(keyboardBarWorkerUrl, { size: workers });
@@ -95,7 +110,8 @@ export const planCommand: Command = {
       for (const template of keyboardBarTemplates(bars)) await io.writeFile(join(values.out, 'templates', template.file), template.svg);
       for (const table of keyboardStationTables(bars)) await io.writeFile(join(values.out, 'stations', table.file), table.csv);
     }
-    io.stdout(values.json ? toJson(plan) : `${planTable(plan)}${values.out !== undefined ? `\n\nWrote ${join(values.out, 'keyboard-plan.json')}, cut-list.csv, templates/*.svg (1:1) and stations/*.csv` : ''}`);
+    if (!values.json && fromLots.length > 0) io.stdout(lotLines(fromLots));
+    io.stdout(values.json ? toJson(fromLots.length > 0 ? { ...plan, lot_materials: fromLots } : plan) : `${planTable(plan)}${values.out !== undefined ? `\n\nWrote ${join(values.out, 'keyboard-plan.json')}, cut-list.csv, templates/*.svg (1:1) and stations/*.csv` : ''}`);
     return plan.summary.complete ? 0 : 1;
   },
 };
