@@ -10,3 +10,4 @@ export * from './elementThicknesses.ts';
 export * from './assembleBending.ts';
 export * from './assembleTorsion.ts';
 export * from './constrainDofs.ts';
+export * from './holeQuadrature.ts';
