@@ -61,7 +61,7 @@ const centsPerLogEigenvalue = 1200 / Math.LN2 / 2;
 function solveProfile(problem: DesignProblem, thickness: Float64Array, modes: number): BendingSolution {
   const profile = { positions: problem.space.grid.positions, thicknesses: thickness };
   const line: BeamLine = { ...problem.line, profile };
-  return solveBendingLine(line, buildMesh(profile, problem.elements), problem.theory, modes);
+  return solveBendingLine(line, buildMesh(profile, problem.elements, line.holes), problem.theory, modes);
 }
 
 /** The bending line of a model (re-exported here so the designer does not reach into modes/). */

@@ -3,6 +3,7 @@ import { beamElement, beamElementScratch } from './beamElement.ts';
 import { elementTypeFor, type BeamElementType, type BeamTheory } from './beamElementType.ts';
 import type { BeamLine } from './BeamLine.ts';
 import { elementThicknesses } from './elementThicknesses.ts';
+import { drilledElementRule, elementHoles } from './holeQuadrature.ts';
 
 /**
  * Assembled bending matrices of a beam line. Global dofs run element by element: node e's
@@ -16,6 +17,8 @@ export interface BendingSystem {
   readonly mass: BandedMatrix;
   /** Each element's thickness at its two ends (m) and its profile interval. */
   readonly thickness: { interval: Int32Array; start: Float64Array; end: Float64Array };
+  /** Each element's cord hole (index into the line's holes), or −1 where it is not drilled. */
+  readonly holes: Int32Array;
 }
 
 /** First global dof of element e (its left node's deflection). */
@@ -25,7 +28,8 @@ export function elementOffset(system: BendingSystem, e: number): number {
 
 /**
  * Assembles the global symmetric banded stiffness and mass matrices of a beam line on the given
- * mesh with the chosen theory's element (see beamElementType.ts).
+ * mesh with the chosen theory's element (see beamElementType.ts); elements inside a cord hole's
+ * span are integrated with the hole's own rule (holeQuadrature.ts).
  */
 export function assembleBending(nodes: Float64Array, line: BeamLine, theory: BeamTheory): BendingSystem {
   const element = elementTypeFor(theory);
@@ -43,12 +47,15 @@ export function assembleBending(nodes: Float64Array, line: BeamLine, theory: Bea
   const ke = new Float64Array(n * n);
   const me = new Float64Array(n * n);
   const scratch = beamElementScratch(element);
+  const holes = elementHoles(nodes, line.holes);
   for (let e = 0; e < elements; e++) {
-    beamElement(element, nodes[e + 1]! - nodes[e]!, thickness.start[e]!, thickness.end[e]!, line.law, ke, me, scratch);
+    const hole = holes[e]!;
+    const drilled = hole >= 0 ? drilledElementRule(nodes[e]!, nodes[e + 1]!, line.holes![hole]!) : undefined;
+    beamElement(element, nodes[e + 1]! - nodes[e]!, thickness.start[e]!, thickness.end[e]!, line.law, ke, me, scratch, drilled);
     bandedAddBlock(stiffness, e * stride, n, ke);
     bandedAddBlock(mass, e * stride, n, me);
   }
-  return { nodes, theory, element, stiffness, mass, thickness };
+  return { nodes, theory, element, stiffness, mass, thickness, holes };
 }
 
 /**

@@ -15,3 +15,4 @@ export * from './solid/solidElement.ts';
 export * from './solid/solidBarMesh.ts';
 export * from './solid/assembleSolid.ts';
 export * from './solid/solidShapeDerivative.ts';
+export * from './holeQuadrature.ts';

@@ -3,6 +3,7 @@ import type { Section } from '../section/Section.ts';
 import { sectionProperties } from '../section/sectionProperties.ts';
 import { defaultShearCoefficient } from '../section/shearCoefficient.ts';
 import { rectangleTorsionConstant, rectangleTorsionConstantDerivative } from '../section/rectangleTorsionConstant.ts';
+import { drilledSection } from '../section/drilledSection.ts';
 
 /**
  * Properties per unit length of a beam as functions of the local thickness t (m): the bridge
@@ -14,6 +15,12 @@ export interface SectionLaw {
   readonly count: number;
   /** Writes the properties at thickness t into `out`, and their d/dt into `derivative` if given. */
   evaluate(thickness: number, out: Float64Array, derivative?: Float64Array): void;
+  /**
+   * The same where a cord hole crosses the section (rect sections only): a full-width strip of
+   * height `chord` (m) centred `depthBelowTop` (m) below the flat top is missing (see
+   * drilledSection); d/dt at a fixed hole. With chord 0 it equals `evaluate`.
+   */
+  evaluateDrilled?(thickness: number, chord: number, depthBelowTop: number, out: Float64Array, derivative?: Float64Array): void;
 }
 
 /** Bending plane: vertical (the tuned family, thickness direction) or lateral (width direction). */
@@ -22,7 +29,9 @@ export type BendingPlane = 'vertical' | 'lateral';
 /**
  * The bending law of a section and material in one plane. Rect: EI = E·b·t³/12 (vertical) or
  * E·t·b³/12 (lateral), κGA = κ·G·b·t, ρA = ρ·b·t, ρI likewise; round and tube are uniform.
- * Classical beam theory about the section's own centroid (contract).
+ * Classical beam theory about the section's own centroid (contract); over a cord hole the net
+ * section's own properties (drilledSection: κGA and ρA from the net area, EI and ρI about the net
+ * centroid).
  */
 export function bendingLaw(section: Section, material: Material, plane: BendingPlane): SectionLaw {
   const E = material.youngModulus;
@@ -47,6 +56,19 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
             derivative[3] = (rho * b * t2) / 4;
           }
         },
+        evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
+          const s = drilledSection(b, t, chord, depthBelowTop);
+          out[0] = E * s.secondMomentVertical;
+          out[1] = kappa * G * s.area;
+          out[2] = rho * s.area;
+          out[3] = rho * s.secondMomentVertical;
+          if (derivative) {
+            derivative[0] = E * s.secondMomentVerticalSlope;
+            derivative[1] = kappa * G * s.areaSlope;
+            derivative[2] = rho * s.areaSlope;
+            derivative[3] = rho * s.secondMomentVerticalSlope;
+          }
+        },
       };
     }
     const b3 = b * b * b;
@@ -64,6 +86,19 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
           derivative[3] = (rho * b3) / 12;
         }
       },
+      evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
+        const s = drilledSection(b, t, chord, depthBelowTop);
+        out[0] = E * s.secondMomentLateral;
+        out[1] = kappa * G * s.area;
+        out[2] = rho * s.area;
+        out[3] = rho * s.secondMomentLateral;
+        if (derivative) {
+          derivative[0] = E * s.secondMomentLateralSlope;
+          derivative[1] = kappa * G * s.areaSlope;
+          derivative[2] = rho * s.areaSlope;
+          derivative[3] = rho * s.secondMomentLateralSlope;
+        }
+      },
     };
   }
   const p = sectionProperties(section);
@@ -79,7 +114,8 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
 
 /**
  * The St-Venant torsion law: GJ (J by the rectangle series, or the polar moment for round
- * sections) and ρI_p with I_p = b·t·(b² + t²)/12 for a rectangle.
+ * sections) and ρI_p with I_p = b·t·(b² + t²)/12 for a rectangle; over a cord hole the two strips
+ * above and below it twist apart (drilledSection).
  */
 export function torsionLaw(section: Section, material: Material): SectionLaw {
   const G = material.shearModulus;
@@ -94,6 +130,16 @@ export function torsionLaw(section: Section, material: Material): SectionLaw {
         if (derivative) {
           derivative[0] = G * rectangleTorsionConstantDerivative(b, t);
           derivative[1] = (rho * b * (b * b + 3 * t * t)) / 12;
+        }
+      },
+      evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
+        // Polar moment of the net section about its centroid: I_vertical + I_lateral.
+        const s = drilledSection(b, t, chord, depthBelowTop);
+        out[0] = G * s.torsionConstant;
+        out[1] = rho * (s.secondMomentVertical + s.secondMomentLateral);
+        if (derivative) {
+          derivative[0] = G * s.torsionConstantSlope;
+          derivative[1] = rho * (s.secondMomentVerticalSlope + s.secondMomentLateralSlope);
         }
       },
     };

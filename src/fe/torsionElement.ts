@@ -1,4 +1,5 @@
 import { gaussLegendre, type QuadratureRule } from './gaussLegendre.ts';
+import type { DrilledRule } from './holeQuadrature.ts';
 import { lagrangeBasis } from './lagrangeBasis.ts';
 import type { SectionLaw } from './sectionLaw.ts';
 
@@ -48,11 +49,15 @@ export function lagrangeTorsionElement(degree: number): TorsionElementType {
 export const torsionElementType: TorsionElementType = lagrangeTorsionElement(4);
 
 const properties = new Float64Array(2);
+const drilledValues = new Float64Array(16);
+const drilledSlopes = new Float64Array(16);
 
 /**
  * Stiffness and mass (row-major, localDofs square) of one St-Venant torsion element of length h
  * (m), thickness linear from thickness0 to thickness1 (m), by Gauss quadrature over the real
- * varying section: K = ∫ GJ·N′ᵀN′ dx, M = ∫ ρI_p·NᵀN dx. Elements know nothing about supports.
+ * varying section: K = ∫ GJ·N′ᵀN′ dx, M = ∫ ρI_p·NᵀN dx; inside a cord hole's span (`drilled`)
+ * with the hole's angle rule and the net section (holeQuadrature.ts). Elements know nothing
+ * about supports.
  */
 export function torsionElement(
   h: number,
@@ -62,24 +67,38 @@ export function torsionElement(
   stiffness: Float64Array,
   mass: Float64Array,
   type: TorsionElementType = torsionElementType,
+  drilled?: DrilledRule,
 ): void {
   const n = type.localDofs;
-  const { points, weights } = type.quadrature;
   stiffness.fill(0);
   mass.fill(0);
-  for (let g = 0; g < points.length; g++) {
-    law.evaluate(thickness0 + points[g]! * (thickness1 - thickness0), properties);
-    const weight = weights[g]! * h;
+  const add = (weight: number, values: Float64Array, slopes: Float64Array, row: number): void => {
     const k = (weight * properties[0]!) / (h * h);
     const m = weight * properties[1]!;
-    const row = g * n;
     for (let a = 0; a < n; a++) {
-      const ka = k * type.slopes[row + a]!;
-      const ma = m * type.values[row + a]!;
+      const ka = k * slopes[row + a]!;
+      const ma = m * values[row + a]!;
       for (let b = 0; b <= a; b++) {
-        stiffness[a * n + b]! += ka * type.slopes[row + b]!;
-        mass[a * n + b]! += ma * type.values[row + b]!;
+        stiffness[a * n + b]! += ka * slopes[row + b]!;
+        mass[a * n + b]! += ma * values[row + b]!;
       }
+    }
+  };
+  if (drilled) {
+    if (!law.evaluateDrilled) throw new Error('internal: a cord hole in a section that cannot be drilled');
+    const values = drilledValues.subarray(0, n);
+    const slopes = drilledSlopes.subarray(0, n);
+    for (let g = 0; g < drilled.xi.length; g++) {
+      const xi = drilled.xi[g]!;
+      law.evaluateDrilled(thickness0 + xi * (thickness1 - thickness0), drilled.chord[g]!, drilled.depthBelowTop, properties);
+      lagrangeBasis(type.points, xi, values, slopes);
+      add(drilled.weight[g]!, values, slopes, 0);
+    }
+  } else {
+    const { points, weights } = type.quadrature;
+    for (let g = 0; g < points.length; g++) {
+      law.evaluate(thickness0 + points[g]! * (thickness1 - thickness0), properties);
+      add(weights[g]! * h, type.values, type.slopes, g * n);
     }
   }
   for (let a = 0; a < n; a++) {

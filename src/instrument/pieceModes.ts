@@ -36,7 +36,7 @@ export function pieceModes(model: BarModel, options: PieceModeOptions = {}): Pie
   const modes = Math.max(1, Math.floor(options.modes ?? 4));
   const theory = options.theory ?? 'timoshenko';
   const line = bendingLine(model, 'vertical');
-  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, theory));
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, theory), model.holes);
   const system = assembleBending(nodes, line, theory);
   for (const load of options.endLoads ?? []) addEndLoad(system.mass, load.at === 'start' ? 0 : system.mass.size - 2, load);
   const free = solveFreeModes(system.stiffness, system.mass, { modes, firstEigenvalueEstimate: firstBendingEigenvalueEstimate(line), rigidModes: bendingRigidModes(system) });

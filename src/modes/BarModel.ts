@@ -1,3 +1,4 @@
+import type { LineHole } from '../fe/BeamLine.ts';
 import type { Material, MaterialElasticity } from '../material/Material.ts';
 import type { GrainOrientation } from '../material/orthotropicStiffness.ts';
 import { orthotropicFromGPa } from '../material/solidElasticity.ts';
@@ -7,7 +8,7 @@ import { isWoodMaterial, resolveWoodConstants, verticalShearOf } from '../fileFo
 import { findMaterialPreset } from '../material/materialPresets.ts';
 import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
 import { sectionDepth, type Section } from '../section/Section.ts';
-import { uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
+import { thicknessAt, uniformProfile, type ThicknessProfile } from '../section/ThicknessProfile.ts';
 import { millimetre as mm, gigapascal as GPa } from '../units/units.ts';
 
 /** A bar in SI units, ready for the solver: length (m), section, thickness profile, material. */
@@ -17,6 +18,8 @@ export interface BarModel {
   /** Thickness profile (m); uniform for round sections (where the thickness is the diameter). */
   readonly profile: ThicknessProfile;
   readonly material: Material;
+  /** Cord holes drilled across the width (rect only; m, see LineHole); absent means none. */
+  readonly holes?: readonly LineHole[];
 }
 
 /** The section of a bar file in SI. */
@@ -99,5 +102,18 @@ export function barModelFromFile(bar: BarFile): BarModel {
   } else {
     profile = uniformProfile(length, sectionDepth(section));
   }
-  return { length, section, profile, material: materialFromFile(bar.material, bar.grain) };
+  const model: BarModel = { length, section, profile, material: materialFromFile(bar.material, bar.grain) };
+  return bar.holes && bar.holes.length > 0 && section.shape === 'rect' ? { ...model, holes: bar.holes.map((hole) => lineHoleFromFile(hole, profile)) } : model;
+}
+
+/**
+ * A bar file's cord hole in SI for the solver: centre and radius, and the depth of its centre
+ * below the flat top — the thickness there less its height above the underside (`z_mm`, default
+ * half the thickness at the hole's centre: drilled through the middle).
+ */
+export function lineHoleFromFile(hole: { x_mm: number; diameter_mm: number; z_mm?: number }, profile: ThicknessProfile): LineHole {
+  const position = hole.x_mm * mm;
+  const thickness = thicknessAt(profile, position);
+  const height = hole.z_mm === undefined ? thickness / 2 : hole.z_mm * mm;
+  return { position, radius: (hole.diameter_mm * mm) / 2, depthBelowTop: thickness - height };
 }

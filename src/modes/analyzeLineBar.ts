@@ -58,7 +58,7 @@ export function analyzeLineBarModel(model: BarModel, options: AnalyzeOptions & {
   const modes = Math.max(1, Math.floor(options.modes ?? 4));
   const theory = options.theory ?? 'timoshenko';
   const shapes = options.shapes ?? false;
-  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(Math.max(modes, 4), theory));
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(Math.max(modes, 4), theory), model.holes);
   const vertical: BendingSolution = solveBendingLine(bendingLine(model, 'vertical'), nodes, theory, Math.max(modes, 3), undefined, analysisTolerance);
   const fundamental = vertical.frequencies[0]!;
   // Other families are wanted over the bending partials' range, and 50 cents beyond partial 3.

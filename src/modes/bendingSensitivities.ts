@@ -1,4 +1,5 @@
 import { elementOffset } from '../fe/assembleBending.ts';
+import { drilledElementRule, lineHoleAt } from '../fe/holeQuadrature.ts';
 import { thicknessAt } from '../section/ThicknessProfile.ts';
 import { bendingFieldsAt } from './modeShape.ts';
 import type { BendingSolution } from './solveBending.ts';
@@ -9,8 +10,9 @@ import type { BendingSolution } from './solveBending.ts';
  * through the hat function of station j: dλ/dt_j = uᵀ(∂K/∂t_j − λ·∂M/∂t_j)u for the
  * M-normalised mode u (Fox & Kapoor, AIAA J. 6 (1968) 2426), with ∂K, ∂M the exact derivatives
  * of the assembled matrices (same Gauss rule, shape functions independent of the section), so
- * this is the exact first derivative of the discrete eigenvalue. One array per mode, one entry
- * per station; zeros for round sections (no thickness profile).
+ * this is the exact first derivative of the discrete eigenvalue (over a cord hole with the same
+ * angle rule as the assembly). One array per mode, one entry per station; zeros for round
+ * sections (no thickness profile).
  */
 export function bendingSensitivities(solution: BendingSolution): Float64Array[] {
   const { system, line } = solution;
@@ -35,12 +37,24 @@ export function bendingSensitivities(solution: BendingSolution): Float64Array[] 
     const t0 = thickness.start[e]!;
     const t1 = thickness.end[e]!;
     const offset = elementOffset(system, e);
-    for (let g = 0; g < points.length; g++) {
-      const xi = points[g]!;
-      line.law.evaluate(t0 + xi * (t1 - t0), properties, slopes);
-      element.evaluateAtQuadraturePoint(g, h, nw, nt, bb, bs);
+    const hole = system.holes[e]!;
+    const drilled = hole >= 0 ? drilledElementRule(x0, x0 + h, line.holes![hole]!) : undefined;
+    const count = drilled ? drilled.xi.length : points.length;
+    for (let g = 0; g < count; g++) {
+      let xi: number;
+      let weight: number;
+      if (drilled) {
+        xi = drilled.xi[g]!;
+        weight = drilled.weight[g]!;
+        line.law.evaluateDrilled!(t0 + xi * (t1 - t0), drilled.chord[g]!, drilled.depthBelowTop, properties, slopes);
+        element.evaluate(xi, h, nw, nt, bb, bs);
+      } else {
+        xi = points[g]!;
+        weight = weights[g]! * h;
+        line.law.evaluate(t0 + xi * (t1 - t0), properties, slopes);
+        element.evaluateAtQuadraturePoint(g, h, nw, nt, bb, bs);
+      }
       const s = (x0 + xi * h - p0) / span;
-      const weight = weights[g]! * h;
       solution.vectors.forEach((u, mode) => {
         let w = 0;
         let theta = 0;
@@ -76,7 +90,10 @@ const derivative = new Float64Array(4);
  */
 export function bendingSensitivityDensity(solution: BendingSolution, mode: number, x: number): number {
   const fields = bendingFieldsAt(solution, mode, x);
-  solution.line.law.evaluate(thicknessAt(solution.line.profile, x), values, derivative);
+  const line = solution.line;
+  const drilled = lineHoleAt(line.holes, x);
+  if (drilled && line.law.evaluateDrilled) line.law.evaluateDrilled(thicknessAt(line.profile, x), drilled.chord, drilled.depthBelowTop, values, derivative);
+  else line.law.evaluate(thicknessAt(line.profile, x), values, derivative);
   const lambda = solution.eigenvalues[mode]!;
   let density = derivative[0]! * fields.curvature ** 2 - lambda * derivative[2]! * fields.deflection ** 2;
   if (solution.system.theory === 'timoshenko') density += derivative[1]! * fields.shear ** 2 - lambda * derivative[3]! * fields.rotation ** 2;

@@ -32,9 +32,10 @@ export interface BendingSolution {
   readonly vectors: Float64Array[];
 }
 
-/** The beam line (length, profile, law) of a bar in one bending plane. */
+/** The beam line (length, profile, law, cord holes) of a bar in one bending plane. */
 export function bendingLine(model: BarModel, plane: BendingPlane = 'vertical'): BeamLine {
-  return { length: model.length, profile: model.profile, law: bendingLaw(model.section, model.material, plane) };
+  const line: BeamLine = { length: model.length, profile: model.profile, law: bendingLaw(model.section, model.material, plane) };
+  return model.holes && model.holes.length > 0 ? { ...line, holes: model.holes } : line;
 }
 
 /**
@@ -78,6 +79,6 @@ export function solveBendingLine(line: BeamLine, nodes: Float64Array, theory: Be
 export function solveBending(model: BarModel, options: BendingOptions = {}): BendingSolution {
   const modes = options.modes ?? 4;
   const line = bendingLine(model, options.plane ?? 'vertical');
-  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, options.theory ?? 'timoshenko'));
+  const nodes = buildMesh(model.profile, options.elements ?? meshDensity(modes, options.theory ?? 'timoshenko'), line.holes);
   return solveBendingLine(line, nodes, options.theory ?? 'timoshenko', modes, undefined, options.tolerance);
 }

@@ -26,7 +26,8 @@ export function longitudinalLine(model: BarModel): BeamLine {
 
 /** The torsion beam line of a bar. */
 export function torsionLine(model: BarModel): BeamLine {
-  return { length: model.length, profile: model.profile, law: torsionLaw(model.section, model.material) };
+  const line: BeamLine = { length: model.length, profile: model.profile, law: torsionLaw(model.section, model.material) };
+  return model.holes && model.holes.length > 0 ? { ...line, holes: model.holes } : line;
 }
 
 /**
@@ -57,5 +58,5 @@ export function solveTorsionLine(line: BeamLine, nodes: Float64Array, modes: num
 /** The lowest flexible torsion modes of a free–free bar (1D St-Venant theory). */
 export function solveTorsion(model: BarModel, options: { modes?: number; elements?: number } = {}): TorsionSolution {
   const modes = options.modes ?? 4;
-  return solveTorsionLine(torsionLine(model), buildMesh(model.profile, options.elements ?? meshDensity(modes)), modes);
+  return solveTorsionLine(torsionLine(model), buildMesh(model.profile, options.elements ?? meshDensity(modes), model.holes), modes);
 }
