@@ -14,3 +14,4 @@ export * from './projectKeyboardFile.ts';
 export * from './projectKeyboardPlan.ts';
 export * from './projectKeyboardPlanEdits.ts';
 export * from './storePlanInProject.ts';
+export * from './projectSessionContext.ts';
