@@ -15,3 +15,4 @@ export * from './projectKeyboardPlan.ts';
 export * from './projectKeyboardPlanEdits.ts';
 export * from './storePlanInProject.ts';
 export * from './projectSessionContext.ts';
+export * from './projectTemperatureDrift.ts';

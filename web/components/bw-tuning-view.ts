@@ -344,6 +344,7 @@ export class BwTuningView extends LitElement {
     const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
     return html`<section class="panel" aria-labelledby="advice-heading">
       <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
+      ${this.renderCaliperVerdict(bar, extras.calibration)}
       ${advice.status === 'done'
         ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p><button class="primary" @click=${this.markDone}>Mark the bar done</button>`
         : advice.status === 'stuck'
@@ -371,6 +372,19 @@ export class BwTuningView extends LitElement {
           </details>`
         : nothing}
     </section>`;
+  }
+
+  /** What the caliper said about the last cut, when its readings were recorded with the last round. */
+  private renderCaliperVerdict(bar: ProjectBar, calibration: NextCutResult['calibration'] | undefined) {
+    const checked = calibration?.cut_from_plan.find((entry) => entry.step === bar.session.steps.length);
+    if (!checked || checked.checkpoints.length === 0) return nothing;
+    const worst = checked.checkpoints.reduce((far, point) => (Math.abs(point.off_mm) > Math.abs(far.off_mm) ? point : far));
+    const off = Math.abs(worst.off_mm);
+    return html`<p data-testid="caliper-verdict">
+      <strong>Caliper after the last cut:</strong>
+      ${checked.percent !== null ? `it went ${formatNumber(checked.percent, 0)} % as deep as planned; ` : ''}${off < 0.005 ? 'on plan at every checkpoint' : `furthest from plan at ${formatMm(worst.x_mm, 0)} mm, ${formatMm(off, 2)} mm ${worst.off_mm > 0 ? 'deeper' : 'shallower'}`}.
+      The advice uses the bar as measured.
+    </p>`;
   }
 
   private renderLimit() {

@@ -8,6 +8,7 @@ import {
   analyzeBar,
   calibrateSession,
   calibratedAnalysis,
+  calibratedDesign,
   calibratedMaterial,
   calibrationSummary,
   chimeCutListCsv,
@@ -82,7 +83,11 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
 
   /** An undercut plan; progress counts solver calls. */
   design(payload, job) {
-    return designBar(payload.bar, { target: payload.target, limits: payload.limits }, { signal: job.signal, onProgress: (step) => job.progress(step.solves, step.maxSolves) }, 'plan');
+    const request = { target: payload.target, limits: payload.limits };
+    const run = { signal: job.signal, onProgress: (step: { solves: number; maxSolves: number }) => job.progress(step.solves, step.maxSolves) };
+    // A bar that has been struck is planned with its calibrated model (one truth with the tuning view).
+    if (payload.session && payload.session.steps.length > 0) return calibratedDesign(payload.bar, request, summaryOf(payload.session, payload.lot), run, 'plan');
+    return designBar(payload.bar, request, run, 'plan');
   },
 
   /** The next cut of a session; progress in percent. */

@@ -27,6 +27,10 @@ export interface DesignPayload {
   bar: BarFile;
   target: { note: string; a4: number; ratios: number[]; tolerance_cents: number[] };
   limits: { min_thickness_mm: number };
+  /** The bar's session, once it has measurements: the plan is then made with its calibrated model. */
+  session?: SessionFile;
+  /** What the bar's lot taught (the calibration's prior), with `session`. */
+  lot?: LotPrior | null;
 }
 
 /** The next cut of a tuning session. */
