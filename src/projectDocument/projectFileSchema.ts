@@ -111,6 +111,17 @@ const registerSchema = z.looseObject({
 /** Where to check a cut with the caliper: positions (mm from the left end) and thicknesses to expect (mm). */
 const checkpointsSchema = z.array(z.looseObject({ x_mm: z.number({ error: 'must be a number (mm)' }).refine((v) => Number.isFinite(v) && v >= 0, { error: 'must be 0 mm or more' }), thickness_mm: positive('mm') }), { error: 'must be a list of caliper checkpoints' });
 
+/** One finished bar's lot record, checked by the lot file's parser. */
+const lotRecordSchema = z.unknown().transform((value, context) => {
+  try {
+    return parseLotFile({ format: 'barwright.lots', version: 1, lots: { lot: { bars: [value] } } }, 'lot_record').lots['lot']!.bars[0]!;
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    context.addIssue({ code: 'custom', path: fieldToPath(error.field).slice(4), message: error.rule, input: value });
+    return z.NEVER;
+  }
+});
+
 const designSchema = z.looseObject({
   feasible: z.boolean({ error: 'must be true or false' }),
   bar: barFileSchema,
@@ -128,6 +139,7 @@ const adviceSchema = z.looseObject({
   calibrated_material: barMaterialSchema.optional(),
   reason: z.string().optional(),
   checkpoints: checkpointsSchema.optional(),
+  lot_record: lotRecordSchema.optional(),
   from_steps: z.number().int({ error: 'must be a whole number' }).min(0, { error: 'must be 0 or more' }),
   advised_at: isoTime,
 });

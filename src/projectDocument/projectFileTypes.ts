@@ -76,6 +76,8 @@ export interface CutAdvice {
   reason?: string;
   /** Where to check the cut with a caliper (with a cut). */
   checkpoints?: CaliperCheckpoint[];
+  /** With a done verdict: what the finished bar teaches its lot (kept in the project's lots when it is marked done). */
+  lot_record?: LotBarRecord;
   /** Number of session steps the advice was computed from (stale when steps change). */
   from_steps: number;
   advised_at: string;

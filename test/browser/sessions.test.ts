@@ -206,6 +206,32 @@ describe('tuning sessions in the workbench', () => {
     await context.close();
   });
 
+  it('names a bar’s lot in its blank; a bar marked done teaches its lot, shown per lot with the bars it learnt from', async () => {
+    const { context, page } = await freshPage();
+    // The demo's E5 chime (a tube, fundamental only) is not started; its lot is named in its blank.
+    await openView(page, 'shape/chime-E5');
+    const lot = page.getByLabel('Lot (the stock or batch it was cut from)');
+    await lot.fill('tube-stock-2');
+    await lot.press('Enter');
+    await saved(page);
+    await goTo(page, 'keyboard');
+    const panel = page.locator('[data-testid="lot"][data-lot="tube-stock-2"]');
+    await expect.poll(() => panel.innerText()).toMatch(/Nothing learnt yet[\s\S]*Still to tune from this lot: E5/);
+    // Struck on target (E5 at A4 = 442 Hz: 442 · 2^(7/12) = 662.25 Hz): the advice is that no cut is needed.
+    await goTo(page, 'tuning/chime-E5');
+    await recordRound(page, [Number((442 * 2 ** (7 / 12)).toFixed(1))]);
+    const finish = page.getByRole('button', { name: 'Mark the bar done' });
+    await finish.waitFor({ timeout: 60_000 });
+    await finish.click();
+    await saved(page);
+    await goTo(page, 'keyboard');
+    await expect.poll(() => panel.locator('[data-testid="lot-bars"] tbody tr').count(), { timeout: 60_000 }).toBe(1);
+    expect(await panel.locator('[data-testid="lot-bars"] tbody th').innerText()).toBe('E5');
+    expect(await panel.locator('[data-testid="lot-next"]').innerText()).toMatch(/The next bar starts from stiffness \(E\) [\d.]+ GPa ± [\d.]+ %/);
+    expect(await panel.innerText()).not.toMatch(/Still to tune/);
+    await context.close();
+  }, 120_000);
+
   it('showed no console errors in any of the above', () => {
     expect(problems).toEqual([]);
   });

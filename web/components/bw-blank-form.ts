@@ -139,9 +139,9 @@ export class BwBlankForm extends LitElement {
             <p class="note wide">${metal ? 'Handbook values: each alloy and temper differs a little, and tuning rounds learn the real values.' : 'A starting guess: each blank differs, and tuning rounds learn the real values.'}</p>`
           : html`<p class="note wide">Uses the preset “${(blank.material as { preset: string }).preset}”.</p>`}
         <div class="select-field wide">
-          <label for="lot">Lot (the board or batch it was cut from)</label>
+          <label for="lot">Lot (the ${metal ? 'stock' : 'board'} or batch it was cut from)</label>
           <input id="lot" autocomplete="off" .value=${blank.lot ?? ''} @change=${this.onLot} aria-invalid=${this.errors['lot'] ? 'true' : 'false'} />
-          ${this.errors['lot'] ? html`<span class="field-error" role="alert">✕ ${this.errors['lot']}</span>` : html`<span class="note">Bars of one lot share their wood: each finished bar teaches the next.</span>`}
+          ${this.errors['lot'] ? html`<span class="field-error" role="alert">✕ ${this.errors['lot']}</span>` : html`<span class="note">Bars of one lot share their ${metal ? 'metal' : 'wood'}: each finished bar teaches the next.</span>`}
         </div>
       </fieldset>`;
   }

@@ -40,7 +40,7 @@ export class BwLotPanel extends LitElement {
       <h4>Lot ${lot.name}</h4>
       ${next
         ? html`<p data-testid="lot-next">
-              The next bar starts from stiffness along the grain ${formatNumber(next.E_GPa, 2)} GPa ± ${formatNumber(next.E_spread_percent, 1)} %, shear stiffness ${formatNumber(next.G_GPa, 3)} GPa ± ${formatNumber(next.G_spread_percent, 0)} %;
+              The next bar starts from stiffness (E) ${formatNumber(next.E_GPa, 2)} GPa ± ${formatNumber(next.E_spread_percent, 1)} %, shear stiffness (G) ${formatNumber(next.G_GPa, 3)} GPa ± ${formatNumber(next.G_spread_percent, 0)} %;
               model correction per unit arch depth ${next.corrections.slice(0, 3).map((c, n) => `${partialName(n)} ${percent(c.mean)} ± ${formatNumber(100 * c.sigma, 1)}`).join(', ')}${next.pitch ? `; pitch ${formatNumber(next.pitch.cents_per_c, 2)} ± ${formatNumber(next.pitch.sigma, 2)} cents per °C` : ''}.
             </p>
             <div class="table-wrap">
@@ -73,7 +73,7 @@ export class BwLotPanel extends LitElement {
     if (!project) return nothing;
     const lots = projectLots(project);
     return html`<section class="panel" aria-labelledby="lots-heading" data-testid="lots">
-      <h3 id="lots-heading">Lots of wood</h3>
+      <h3 id="lots-heading">Lots (boards and batches)</h3>
       ${lots.length === 0
         ? html`<p class="muted">No bar names the board or batch it was cut from. Name it in a bar's blank (shape view): each finished bar then teaches the next one from the same lot.</p>`
         : lots.map((lot) => this.renderLot(lot))}

@@ -307,8 +307,8 @@ export class BwShapeView extends LitElement {
     if (rounds === 0) return html`<p class="muted" data-testid="model-source">From the starting-guess material: no rounds yet. Once the bar has been struck, its rounds calibrate these figures.</p>`;
     if (!calibration) return html`<p class="muted" data-testid="model-source">Calibrating from this bar's ${rounds} round${rounds === 1 ? '' : 's'}…</p>`;
     return html`<p data-testid="model-source">
-      <strong>Calibrated from this bar's ${calibration.steps} round${calibration.steps === 1 ? '' : 's'}</strong>, as the tuning view predicts: stiffness along the grain ${formatNumber(calibration.E_GPa, 2)} GPa, shear stiffness ${formatNumber(calibration.G_GPa, 3)} GPa,
-      density ${formatNumber(calibration.density_kg_m3, 0)} kg/m³${calibration.lot ? `, starting from lot ${calibration.lot}` : ''}; at the playing temperature, ${formatNumber(calibration.playing_temperature_c, 1)} °C.
+      <strong>Calibrated from this bar's ${calibration.steps} round${calibration.steps === 1 ? '' : 's'}</strong>, as the tuning view predicts: ${barMaterialFamily(bar.current) === 'metal' ? 'stiffness' : 'stiffness along the grain'} ${formatNumber(calibration.E_GPa, 2)} GPa, shear stiffness ${formatNumber(calibration.G_GPa, 3)} GPa,
+      density ${formatNumber(calibration.density_kg_m3, 0)} kg/m³${calibration.lot ? `, starting from lot ${calibration.lot}` : ''}; at the playing temperature, ${calibration.playing_temperature_c} °C.
     </p>`;
   }
 

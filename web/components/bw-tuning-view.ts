@@ -21,14 +21,13 @@ import {
   setMinimumThickness,
   stableHash,
   type CutInstructions,
-  type LotBarRecord,
   type NextCutResult,
   type ProjectBar,
   type ProjectFile,
 } from '../../src/index.ts';
 import { TaskController, workerJob, type TaskProblem } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
-import type { AnalyzeResult } from '../worker/solverProtocol.ts';
+import type { AnalyzeResult, NextCutAdvice } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
 import { formatHz, formatMm, formatNumber, formatRatios, partialName } from '../format.ts';
@@ -144,20 +143,13 @@ export class BwTuningView extends LitElement {
    * Next-cut advice, per bar: stored on the bar whose session it was worked out from, and dropped
    * if that session changed meanwhile (a round recorded or removed).
    */
-  private readonly advice = new TaskController<NextCutResult>(this, {
+  private readonly advice = new TaskController<NextCutAdvice>(this, {
     isCurrent: (binding) => {
       const bar = this.project?.bars.find((candidate) => candidate.id === binding.subject);
       return bar !== undefined && this.project !== null && stableHash(this.advicePayload(this.project, bar)) === binding.key;
     },
     onResult: (result, binding) => {
       const sent = sendEdit(this, (project) => setAdvice(project, binding.subject, result, new Date().toISOString()));
-      return sent.ok ? undefined : sent.error.message;
-    },
-  });
-  /** What a finished bar taught its lot: kept in the project's lots, on the lot it was cut from. */
-  private readonly learning = new TaskController<LotBarRecord>(this, {
-    onResult: (record, binding) => {
-      const sent = sendEdit(this, (project) => recordLotLearning(project, binding.key, record));
       return sent.ok ? undefined : sent.error.message;
     },
   });
@@ -228,7 +220,8 @@ export class BwTuningView extends LitElement {
   /** Works out the next cut from `bar`'s session (stored on that bar when done). */
   private requestAdvice(bar: ProjectBar): void {
     const payload = this.advicePayload(this.project!, bar);
-    this.advice.run({ subject: bar.id, key: stableHash(payload) }, workerJob(solver, 'nextCut', payload));
+    // A done verdict comes with what the bar teaches its lot (kept when it is marked done).
+    this.advice.run({ subject: bar.id, key: stableHash(payload) }, workerJob(solver, 'nextCut', { ...payload, learn: { bar: bar.id, note: bar.note } }));
   }
 
   /** The prediction for the bar on screen. */
@@ -278,18 +271,20 @@ export class BwTuningView extends LitElement {
     }
   }
 
+  /**
+   * The advised cut is made (or the bar is done). A finished bar cut from a named lot teaches it:
+   * what its rounds learnt (carried by the done advice) becomes the next bar's starting point.
+   */
   private markDone(): void {
+    const at = new Date().toISOString();
     const bar = this.bar;
-    const project = this.project;
-    const finishing = bar?.advice?.status === 'done';
-    const outcome = sendEdit(this, (p) => markCutDone(p, this.barId, new Date().toISOString()));
-    this.actionError = outcome.ok ? '' : outcome.error.message;
-    // A finished bar teaches its lot: what its rounds learnt becomes the next bar's starting point.
     const lot = bar ? barLot(bar) : undefined;
-    if (outcome.ok && finishing && bar && project && lot) {
-      const payload = { ...this.advicePayload(project, bar), bar: bar.id, note: bar.note, at: new Date().toISOString() };
-      this.learning.run({ subject: bar.id, key: lot }, workerJob(solver, 'learnLot', payload));
-    }
+    const record = bar?.advice?.status === 'done' ? bar.advice.lot_record : undefined;
+    const outcome = sendEdit(this, (project) => {
+      const marked = markCutDone(project, this.barId, at);
+      return lot && record ? recordLotLearning(marked, lot, { ...record, learnt_at: at }) : marked;
+    });
+    this.actionError = outcome.ok ? '' : outcome.error.message;
   }
 
   private setLimit(value: number): void {

@@ -90,15 +90,12 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
     return designBar(payload.bar, request, run, 'plan');
   },
 
-  /** The next cut of a session; progress in percent. */
+  /** The next cut of a session; progress in percent. When done (and `learn` given), with what the bar teaches its lot. */
   nextCut(payload, job) {
-    return nextCut(payload.session, { source: 'session', lot: payload.lot ?? null, onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
-  },
-
-  /** What a finished bar's session teaches its lot. */
-  learnLot(payload) {
+    const result = nextCut(payload.session, { source: 'session', lot: payload.lot ?? null, onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
+    if (result.status !== 'done' || !payload.learn) return result;
     const log = parseSessionFile(payload.session, 'session');
-    return lotRecordFromCalibration(calibrateSession(log, { lot: payload.lot ?? null }), payload.bar, payload.at, payload.note);
+    return { ...result, lot_record: lotRecordFromCalibration(calibrateSession(log, { lot: payload.lot ?? null }), payload.learn.bar, new Date().toISOString(), payload.learn.note) };
   },
 
   /** Resonator tubes for a set of fundamentals. */

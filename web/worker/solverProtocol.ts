@@ -38,17 +38,12 @@ export interface NextCutPayload {
   session: SessionFile;
   /** What the bar's lot taught (the calibration's prior). */
   lot?: LotPrior | null;
+  /** The bar (the project's id) and its note: a `done` result then carries what the bar teaches its lot. */
+  learn?: { bar: string; note: string };
 }
 
-/** What a finished bar's session teaches its lot. */
-export interface LearnLotPayload {
-  session: SessionFile;
-  lot?: LotPrior | null;
-  /** The record's name for the bar (the project's bar id) and its note. */
-  bar: string;
-  note: string;
-  at: string;
-}
+/** Next-cut advice; when done, with what the finished bar teaches its lot (`learn` given). */
+export type NextCutAdvice = NextCutResult & { lot_record?: LotBarRecord };
 
 /** Resonator tube lengths for a set of fundamentals at a temperature. */
 export interface ResonatorPayload {
@@ -83,8 +78,7 @@ export type SolverJobs = {
   analyze: { payload: AnalyzePayload; result: AnalyzeResult };
   analyzeMany: { payload: AnalyzeManyPayload; result: AnalyzeManyEntry[] };
   design: { payload: DesignPayload; result: DesignResult };
-  nextCut: { payload: NextCutPayload; result: NextCutResult };
-  learnLot: { payload: LearnLotPayload; result: LotBarRecord };
+  nextCut: { payload: NextCutPayload; result: NextCutAdvice };
   resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };
   chimeSet: { payload: ChimeSetPayload; result: { plan: ChimeSetPlan; csv: string } };
 };
