@@ -42,6 +42,7 @@ import './bw-station-table.ts';
 import './bw-round-history.ts';
 import './bw-last-round.ts';
 import './bw-caliper-checkpoints.ts';
+import './bw-caliper-verdict.ts';
 import './bw-round-conditions.ts';
 import './bw-cautions.ts';
 import './bw-number-field.ts';
@@ -334,14 +335,16 @@ export class BwTuningView extends LitElement {
       </section>`;
     }
     const plan: CutInstructions = (advice as { cut?: CutInstructions | null }).cut ?? cutInstructions(bar.current, advice.bar_after);
-    const extras = advice as { cautions?: string[]; warnings?: string[]; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
+    const extras = advice as { cautions?: string[]; warnings?: string[]; wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
     const predicted = comparePartials(advice.predicted_hz, targets, register.tolerance_cents);
     const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
     return html`<section class="panel" aria-labelledby="advice-heading">
       <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
-      ${this.renderCaliperVerdict(bar, extras.calibration)}
+      <bw-caliper-verdict .checked=${extras.calibration?.cut_from_plan.find((entry) => entry.step === bar.session.steps.length) ?? null}></bw-caliper-verdict>
       ${advice.status === 'done'
-        ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p><button class="primary" @click=${this.markDone}>Mark the bar done</button>`
+        ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p>
+            ${extras.wait_minutes && extras.wait_minutes > 0 ? html`<p class="problem" role="status" data-testid="still-warm">The last round was struck while the bar was still warm from the cut (it reads flat): strike it again in ${extras.wait_minutes} min before marking it done.</p>` : nothing}
+            <button class="primary" @click=${this.markDone}>Mark the bar done</button>`
         : advice.status === 'stuck'
           ? html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
           : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
@@ -367,19 +370,6 @@ export class BwTuningView extends LitElement {
           </details>`
         : nothing}
     </section>`;
-  }
-
-  /** What the caliper said about the last cut, when its readings were recorded with the last round. */
-  private renderCaliperVerdict(bar: ProjectBar, calibration: NextCutResult['calibration'] | undefined) {
-    const checked = calibration?.cut_from_plan.find((entry) => entry.step === bar.session.steps.length);
-    if (!checked || checked.checkpoints.length === 0) return nothing;
-    const worst = checked.checkpoints.reduce((far, point) => (Math.abs(point.off_mm) > Math.abs(far.off_mm) ? point : far));
-    const off = Math.abs(worst.off_mm);
-    return html`<p data-testid="caliper-verdict">
-      <strong>Caliper after the last cut:</strong>
-      ${checked.percent !== null ? `it went ${formatNumber(checked.percent, 0)} % as deep as planned; ` : ''}${off < 0.005 ? 'on plan at every checkpoint' : `furthest from plan at ${formatMm(worst.x_mm, 0)} mm, ${formatMm(off, 2)} mm ${worst.off_mm > 0 ? 'deeper' : 'shallower'}`}.
-      The advice uses the bar as measured.
-    </p>`;
   }
 
   private renderLimit() {
