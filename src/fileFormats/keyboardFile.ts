@@ -6,15 +6,10 @@ import { parseBarFile, type BarFileMaterial } from './barFile.ts';
 import { InputError, isInputError } from './InputError.ts';
 import { keyboardFileFormat, keyboardFileVersion, type KeyboardFile, type KeyboardLimits, type KeyboardResonators, type NoteSpan } from './keyboardFileTypes.ts';
 import { parseSpans } from './keyboardFileSpans.ts';
+import { isJsonObject as isObject } from './jsonFields.ts';
 
 export * from './keyboardFileTypes.ts';
 export { spanIndexOf } from './keyboardFileSpans.ts';
-
-type Json = Record<string, unknown>;
-
-function isObject(value: unknown): value is Json {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
 
 function number(source: string, field: string, value: unknown, rule: (n: number) => string | null): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number (got ${JSON.stringify(value)})`);
