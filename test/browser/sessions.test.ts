@@ -165,6 +165,8 @@ describe('tuning sessions in the workbench', () => {
     await expect.poll(() => rows.count()).toBe(5);
     await expect.poll(() => rows.nth(3).innerText()).toMatch(/warm: 3 min after the cut; round 5 governs/);
     expect(await rows.nth(4).innerText()).not.toMatch(/warm/);
+    // Struck again once rested: the timer has done its job and goes.
+    await expect.poll(() => timer.count()).toBe(0);
     await saved(page);
 
     // The project file keeps when the cut was finished and what the caliper read, in the session's own fields.

@@ -20,6 +20,7 @@ import {
   setAdvice,
   setMinimumThickness,
   stableHash,
+  warmBarMinutes,
   type CutInstructions,
   type NextCutResult,
   type ProjectBar,
@@ -207,6 +208,20 @@ export class BwTuningView extends LitElement {
     return null;
   }
 
+  /**
+   * When the cut the bar may still be warm from was finished, for the rest timer: the last cut's
+   * time until the bar is struck, and after a round struck while it was warm (until the re-strike);
+   * empty otherwise.
+   */
+  private restingSince(bar: ProjectBar): string {
+    const finished = bar.cut_finished_at;
+    if (!finished) return '';
+    if (this.cutSinceLastRound(bar)) return finished;
+    const last = bar.session.steps[bar.session.steps.length - 1];
+    const warm = last?.cut_finished_at === finished && Date.parse(last.recorded_at ?? '') - Date.parse(finished) < warmBarMinutes * 60_000;
+    return warm ? finished : '';
+  }
+
   /** True when the bar's shape differs from the one last struck (a cut was made since). */
   private cutSinceLastRound(bar: ProjectBar): boolean {
     const last = bar.session.steps[bar.session.steps.length - 1];
@@ -336,6 +351,8 @@ export class BwTuningView extends LitElement {
     }
     const plan: CutInstructions = (advice as { cut?: CutInstructions | null }).cut ?? cutInstructions(bar.current, advice.bar_after);
     const extras = advice as { cautions?: string[]; warnings?: string[]; wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
+    // Where the temperature coefficient comes from is a note on the readings, not a check before cutting.
+    const checks = (extras.warnings ?? []).filter((warning) => !warning.startsWith('temperature:'));
     const predicted = comparePartials(advice.predicted_hz, targets, register.tolerance_cents);
     const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
     return html`<section class="panel" aria-labelledby="advice-heading">
@@ -348,7 +365,7 @@ export class BwTuningView extends LitElement {
         : advice.status === 'stuck'
           ? html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
           : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
-              ${extras.warnings && extras.warnings.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${extras.warnings.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
+              ${checks.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${checks.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
               <bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>
               <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
               <bw-station-table .plan=${plan}></bw-station-table>
@@ -422,7 +439,7 @@ export class BwTuningView extends LitElement {
             <bw-partial-entry .count=${register.ratios.length} .targets=${targets} .filled=${this.heard} .filledFrom=${this.heardFrom} @round-submit=${this.onRound}></bw-partial-entry>
             <bw-round-conditions
               .checkpoints=${this.cutSinceLastRound(bar) ? (bar.checkpoints ?? null) : null}
-              finished-at=${bar.cut_finished_at ?? ''}
+              finished-at=${this.restingSince(bar)}
               air-c=${this.lastAirC(bar) ?? project.instrument.air_temperature_c}
               playing-c=${project.instrument.air_temperature_c}
               blank-mm=${bar.blank.section.shape === 'rect' ? bar.blank.section.thickness_mm : 0}
