@@ -55,6 +55,14 @@ function record(barId: string, note: string, E_GPa: number): LotBarRecord {
   return { bar: barId, note, learnt_at: '2025-03-03T12:00:00Z', steps: 5, E_GPa, G_GPa: E_GPa / 15, density_kg_m3: 1000, E_uncertainty_percent: 0.4, G_uncertainty_percent: 2, correction_per_depth: [-0.05, -0.07, -0.08], correction_sigma: [0.004, 0.004, 0.004], arch_depth: 0.6 };
 }
 
+/** Step k's fundamental (read at `celsius`) moved to the playing temperature, in cents from 442 Hz. */
+function centsAtPlaying(project: ProjectFile, k: number, celsius: number): number {
+  const a4 = bar(project, 'bar-A4');
+  const temperature = barTemperature(project, a4)!;
+  expect(temperature.readingC[k]).toBe(celsius);
+  return 1200 * Math.log2(a4.session.steps[k]!.measured_hz[0]! / 442) + temperature.shiftCents[k]!;
+}
+
 describe('a round in the project', () => {
   it('records the air temperature and caliper readings with it, and refuses an air temperature out of range by name', () => {
     const project = recordStep(demo(), 'bar-A4', [440, 1758, 4400], { at: '2025-04-01T10:00:00.000Z', airTemperatureC: 27, measuredThicknessMm: [[100, 20.5], [200, 18.25]] });
@@ -114,6 +122,24 @@ describe('readings at the playing temperature', () => {
     expect(drift.instrument.barCentsPerC).toBe(-2);
     expect(drift.instrument.apartCentsPerC).toBeCloseTo(tube + 2, 12);
     expect(drift.learnt).toEqual([]);
+  });
+
+  it('learns a bar’s own coefficient from the unchanged bar struck at 15 and 25 °C, and lists it beside its tube', () => {
+    // A simulated bar moving −1.9 cents per °C (unknown to the tool), in tune at 22 °C.
+    const own = -1.9;
+    const atPlaying = [442, 1768, 4420];
+    const heardAt = (celsius: number) => atPlaying.map((hz) => hz * 2 ** ((own * (celsius - 22)) / 1200));
+    let project = recordStep(demo(), 'bar-A4', heardAt(15), { at: '2025-04-01T08:00:00.000Z', airTemperatureC: 15 });
+    project = recordStep(project, 'bar-A4', heardAt(25), { at: '2025-04-01T15:00:00.000Z', airTemperatureC: 25 });
+    const temperature = barTemperature(project, bar(project, 'bar-A4'))!;
+    expect(temperature.from).toBe('learnt');
+    // Noise-free readings: the fit recovers the slope far inside the issue's 0.2 cents per °C.
+    expect(Math.abs(temperature.centsPerC - own)).toBeLessThan(0.2);
+    // Both readings land on the targets at the playing temperature (within 0.5 cent: the learnt slope is pooled with the prior).
+    for (const [k, celsius] of [15, 25].entries()) expect(Math.abs(centsAtPlaying(project, k, celsius))).toBeLessThan(0.5);
+    const [learnt] = temperatureDrift(project).learnt;
+    expect(learnt!.note).toBe('A4');
+    expect(learnt!.apartCentsPerC).toBeCloseTo(1200 / Math.LN2 / (2 * (273.15 + 22)) - temperature.centsPerC, 12);
   });
 });
 

@@ -50,7 +50,7 @@ export class BwRoundConditions extends LitElement {
   @property({ attribute: false }) checkpoints: CaliperCheckpoint[] | null = null;
   /** When the last cut was finished (ISO 8601), or empty. */
   @property({ attribute: 'finished-at' }) finishedAt = '';
-  /** The air temperature to start from (the last one given, or the playing temperature), °C. */
+  /** The air temperature to start from (the last one given for this bar), °C; null leaves the field empty. */
   @property({ type: Number, attribute: 'air-c' }) airC: number | null = null;
   /** The playing temperature, °C (for the hint). */
   @property({ type: Number, attribute: 'playing-c' }) playingC = 20;
@@ -60,9 +60,29 @@ export class BwRoundConditions extends LitElement {
   @state() private air: number | null = null;
   @state() private readings: (number | null)[] = [];
 
+  /** Set when what goes with the next round changed without the maker typing (another bar, new checkpoints). */
+  private changedUnasked = false;
+  private checkpointsKey = '[]';
+
   protected override willUpdate(changed: Map<string, unknown>): void {
-    if (changed.has('airC') && this.air === null) this.air = this.airC;
-    if (changed.has('checkpoints')) this.readings = (this.checkpoints ?? []).map(() => null);
+    if (changed.has('airC') && this.air === null && this.airC !== null) {
+      this.air = this.airC;
+      this.changedUnasked = true;
+    }
+    // New checkpoints (not merely a new copy of the same ones after a save) start empty fields.
+    const checkpointsKey = JSON.stringify(this.checkpoints ?? []);
+    if (changed.has('checkpoints') && checkpointsKey !== this.checkpointsKey) {
+      this.checkpointsKey = checkpointsKey;
+      this.readings = (this.checkpoints ?? []).map(() => null);
+      this.changedUnasked = true;
+    }
+  }
+
+  protected override updated(): void {
+    // The round takes what the fields show: tell the view whenever they changed by themselves.
+    if (!this.changedUnasked) return;
+    this.changedUnasked = false;
+    this.announce();
   }
 
   /** Forgets the caliper readings once a round has recorded them (the air temperature stays). */
@@ -79,10 +99,6 @@ export class BwRoundConditions extends LitElement {
     this.dispatchEvent(new CustomEvent<RoundConditions>('conditions-change', { detail: { airC: this.air, readings }, bubbles: true, composed: true }));
   }
 
-  protected override firstUpdated(): void {
-    this.announce();
-  }
-
   protected override render() {
     const points = this.checkpoints ?? [];
     return html`<bw-rest-timer finished-at=${this.finishedAt}></bw-rest-timer>
@@ -94,9 +110,14 @@ export class BwRoundConditions extends LitElement {
         .min=${-30}
         .max=${60}
         step="0.5"
-        hint=${`Readings are shown at the playing temperature, ${this.playingC} °C.`}
+        optional
+        hint=${`Readings are shown at the playing temperature, ${this.playingC} °C; left empty, a reading is taken as read at it.`}
         @value-commit=${(event: CustomEvent<ValueCommitDetail>) => {
           this.air = event.detail.value;
+          this.announce();
+        }}
+        @value-clear=${() => {
+          this.air = null;
           this.announce();
         }}
       ></bw-number-field>

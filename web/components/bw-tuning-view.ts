@@ -440,7 +440,7 @@ export class BwTuningView extends LitElement {
             <bw-round-conditions
               .checkpoints=${this.cutSinceLastRound(bar) ? (bar.checkpoints ?? null) : null}
               finished-at=${this.restingSince(bar)}
-              air-c=${this.lastAirC(bar) ?? project.instrument.air_temperature_c}
+              .airC=${this.lastAirC(bar)}
               playing-c=${project.instrument.air_temperature_c}
               blank-mm=${bar.blank.section.shape === 'rect' ? bar.blank.section.thickness_mm : 0}
               @conditions-change=${(event: CustomEvent<RoundConditions>) => (this.conditions = event.detail)}
