@@ -149,6 +149,7 @@ describe('tuning sessions in the workbench', () => {
     const rows = page.locator('[data-testid="rounds"] tbody tr');
     await expect.poll(() => rows.count()).toBe(4);
     await expect.poll(() => rows.nth(3).innerText()).toMatch(/warm: 3 min after the cut/);
+    expect(await page.locator('[data-testid="last-round-warm"]').innerText()).toMatch(/Struck 3 min after the cut: a bar still warm from the cut reads flat/);
     // The advice from it says how far the cut went from plan, at one of the checkpoints (the depth
     // removed is judged against the bar as the session believed it before the cut, so it is not
     // simply the 0.2 mm typed), and that the bar as measured is used.
@@ -165,8 +166,9 @@ describe('tuning sessions in the workbench', () => {
     await expect.poll(() => rows.count()).toBe(5);
     await expect.poll(() => rows.nth(3).innerText()).toMatch(/warm: 3 min after the cut; round 5 governs/);
     expect(await rows.nth(4).innerText()).not.toMatch(/warm/);
-    // Struck again once rested: the timer has done its job and goes.
+    // Struck again once rested: the timer has done its job and goes, and the last round is not warm.
     await expect.poll(() => timer.count()).toBe(0);
+    expect(await page.locator('[data-testid="last-round-warm"]').count()).toBe(0);
     await saved(page);
 
     // The project file keeps when the cut was finished and what the caliper read, in the session's own fields.

@@ -2,7 +2,7 @@
 // temperature, the reading as taken (and its air temperature) beside it.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { barTargetHz, barTemperature, comparePartials, lastMeasuredHz, registerOf, type ProjectBar, type ProjectFile } from '../../src/index.ts';
+import { barTargetHz, barTemperature, barWarmReadings, comparePartials, lastMeasuredHz, registerOf, type ProjectBar, type ProjectFile } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatHz, formatNumber, formatWhen, partialName } from '../format.ts';
 import './bw-cents-readout.ts';
@@ -43,6 +43,7 @@ export class BwLastRound extends LitElement {
     const index = bar.session.steps.length - 1;
     const shift = temperature?.shiftCents[index] ?? 0;
     const readC = temperature?.readingC[index] ?? null;
+    const warm = barWarmReadings(project, bar).find((reading) => reading.step === bar.session.steps.length);
     const standings = comparePartials(measured.map((hz) => hz * 2 ** (shift / 1200)), targets, register.tolerance_cents);
     return html`<section class="panel" aria-labelledby="last-heading">
       <h3 id="last-heading">Last round · ${formatWhen(last?.recorded_at)}${last?.source ? html` <span class="muted">(${last.source})</span>` : nothing}</h3>
@@ -65,6 +66,11 @@ export class BwLastRound extends LitElement {
           ? `At the playing temperature, ${temperature.playingC} °C: read at ${readC} °C and moved ${formatNumber(shift, 1)} cents (${formatNumber(temperature.centsPerC, 2)} cents per °C, ${temperature.from === 'learnt' ? 'learnt from this bar' : temperature.source}).`
           : `No air temperature recorded with this round: taken as read at the playing temperature, ${project.instrument.air_temperature_c} °C.`}
       </p>
+      ${warm
+        ? html`<p class="problem" role="status" data-testid="last-round-warm">
+            Struck ${Math.round(warm.minutes_after_cut)} min after the cut: a bar still warm from the cut reads flat. Let it rest about 10 minutes and strike it again; that round will count instead.
+          </p>`
+        : nothing}
     </section>`;
   }
 }
