@@ -12,6 +12,8 @@ export interface BarTubeDrift {
   barCentsPerC: number;
   /** Where the bar's coefficient comes from (the material, a default, or learnt from its rounds). */
   source: string;
+  /** Which kind of source: the material as given, a preset, the stated default, or the bar's own rounds. */
+  from: 'bar file' | 'preset' | 'default' | 'learnt';
   /** Tube minus bar, cents per °C: how far the tube's pitch moves away from its bar per °C. */
   apartCentsPerC: number;
 }
@@ -38,10 +40,10 @@ export function temperatureDrift(project: ProjectFile): TemperatureDrift {
   const playingC = project.instrument.air_temperature_c;
   const tubeCentsPerC = detuneCentsPerDegree(playingC);
   const material = pitchTemperatureCoefficient(project.instrument.material);
-  const drift = (barCentsPerC: number, source: string): BarTubeDrift => ({ barCentsPerC, source, apartCentsPerC: tubeCentsPerC - barCentsPerC });
+  const drift = (barCentsPerC: number, source: string, from: BarTubeDrift['from']): BarTubeDrift => ({ barCentsPerC, source, from, apartCentsPerC: tubeCentsPerC - barCentsPerC });
   const learnt = project.bars.flatMap((bar) => {
     const temperature = barTemperature(project, bar);
-    return temperature?.from === 'learnt' ? [{ barId: bar.id, note: bar.note, ...drift(temperature.centsPerC, 'learnt from its rounds') }] : [];
+    return temperature?.from === 'learnt' ? [{ barId: bar.id, note: bar.note, ...drift(temperature.centsPerC, 'learnt from its rounds', 'learnt') }] : [];
   });
-  return { playingC, tubeCentsPerC, instrument: drift(material.centsPerC, material.source), learnt };
+  return { playingC, tubeCentsPerC, instrument: drift(material.centsPerC, material.source, material.from), learnt };
 }

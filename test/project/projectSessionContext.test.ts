@@ -120,6 +120,7 @@ describe('readings at the playing temperature', () => {
     const tube = 1200 / Math.LN2 / (2 * (273.15 + 22));
     expect(drift.tubeCentsPerC).toBeCloseTo(tube, 12);
     expect(drift.instrument.barCentsPerC).toBe(-2);
+    expect(drift.instrument.from).toBe('default');
     expect(drift.instrument.apartCentsPerC).toBeCloseTo(tube + 2, 12);
     expect(drift.learnt).toEqual([]);
   });

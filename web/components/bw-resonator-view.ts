@@ -281,11 +281,11 @@ export class BwResonatorView extends LitElement {
   private renderDrift(project: ProjectFile) {
     const drift = temperatureDrift(project);
     const signed = (value: number) => `${value >= 0 ? '+' : '−'}${formatNumber(Math.abs(value), 1)}`;
-    return html`<div class="drift" data-testid="temperature-drift">
+    return html`<div class="drift" style="margin-top: 1rem" data-testid="temperature-drift">
       <h3>Bar and tube apart per °C</h3>
       <p>
         Away from ${drift.playingC} °C, a tube moves <strong>${signed(drift.tubeCentsPerC)} cents per °C</strong> (warmer air, sharper tube) and the bars
-        <strong>${signed(drift.instrument.barCentsPerC)} cents per °C</strong> (${drift.instrument.source}): they drift apart by
+        <strong>${signed(drift.instrument.barCentsPerC)} cents per °C</strong> (${drift.instrument.from === 'default' ? 'the usual figure for wood, common practice: a bar struck unchanged at two temperatures learns its own' : drift.instrument.source}): they drift apart by
         <strong data-testid="drift-apart">${formatNumber(Math.abs(drift.instrument.apartCentsPerC), 1)} cents per °C</strong>, so ${formatNumber(Math.abs(5 * drift.instrument.apartCentsPerC), 0)} cents at 5 °C off.
       </p>
       ${drift.learnt.length > 0
