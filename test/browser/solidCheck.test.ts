@@ -1,6 +1,7 @@
 // The shape view's 3D check in Chromium: the deep-arch bar of the solid model's tests, imported in
 // a project, solved in the page's worker with its time measured there; the figures agree with the
-// library run in Node; a mode's nodal lines and shape are shown; cancel stops the job.
+// library run in Node; a mode's nodal lines and shape are shown; cancel stops the job; a measured
+// bar is solved with its calibrated material.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
@@ -109,7 +110,7 @@ describe('the 3D check in the shape view', () => {
     expect(problems).toEqual([]);
   }, 300_000);
 
-  it('cancel stops the 3D job and says so', async () => {
+  it('cancel stops the 3D job and says so; on a bar with rounds the 3D model takes the calibrated material', async () => {
     const { context, page } = await openFreshPage(browser, problems);
     await page.goto(`${baseUrl}#/shape/bar-A2`);
     await saved(page);
@@ -118,6 +119,10 @@ describe('the 3D check in the shape view', () => {
     await page.locator('[data-testid="solid-cancel"]').click();
     await expect.poll(() => page.locator('bw-solid-check [role="alert"]').innerText()).toMatch(/Stopped/);
     await expect.poll(() => page.locator('[data-testid="solid-run"]').isEnabled()).toBe(true);
+    // The demo's A2 has tuning rounds: run to the end, and the 3D model takes the calibrated material.
+    await page.locator('[data-testid="solid-run"]').click();
+    await page.locator('[data-testid="solid-modes"]').waitFor({ timeout: 90_000 });
+    await expect.poll(() => page.locator('[data-testid="solid-calibrated"]').innerText()).toMatch(/Material from this bar's \d+ measured rounds?: E [\d.]+ GPa and G [\d.]+ GPa/);
     await context.close();
     expect(problems).toEqual([]);
   }, 120_000);

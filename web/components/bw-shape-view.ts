@@ -466,7 +466,7 @@ export class BwShapeView extends LitElement {
           ${this.renderModes()}
           <section class="panel" aria-labelledby="solid-heading">
             <h3 id="solid-heading">On the 3D model</h3>
-            <bw-solid-check .bar=${bar.current} bar-id=${bar.id} partials=${registerOf(project, bar).ratios.length}></bw-solid-check>
+            <bw-solid-check .bar=${bar.current} bar-id=${bar.id} partials=${registerOf(project, bar).ratios.length} .calibrationInputs=${this.calibrationInputs()}></bw-solid-check>
           </section>
           ${rect ? this.renderPlan() : nothing} ${this.renderEngineering()}
         </div>

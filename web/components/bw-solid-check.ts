@@ -3,7 +3,8 @@
 // bar and the chosen mode's shape along it. Solved in a worker of its own (progress, cancel).
 import { LitElement, html, css, nothing, svg } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { barMaterialFamily, stableHash, type BarAnalysis, type BarFile, type ModeResult } from '../../src/index.ts';
+import { barMaterialFamily, stableHash, type BarAnalysis, type BarFile, type LotPrior, type ModeResult, type SessionFile } from '../../src/index.ts';
+import type { SolidModesResult } from '../worker/solverProtocol.ts';
 import { TaskController, workerJob } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
@@ -69,20 +70,22 @@ export class BwSolidCheck extends LitElement {
   @property({ attribute: 'bar-id' }) barId = '';
   /** Tuned partials to list (the register's). */
   @property({ type: Number }) partials = 3;
+  /** What calibrates the bar once it has rounds (its session and lot), or null. */
+  @property({ attribute: false }) calibrationInputs: { session: SessionFile; lot: LotPrior | null } | null = null;
 
   @state() private chosen: { family: Family; mode: number } = { family: 'bending', mode: 1 };
 
-  private readonly solid = new TaskController<BarAnalysis>(this, {});
+  private readonly solid = new TaskController<SolidModesResult>(this, {});
 
   private keyOf(bar: BarFile): string {
-    return stableHash({ bar, partials: this.partials });
+    return stableHash({ bar, partials: this.partials, calibration: this.calibrationInputs });
   }
 
   private run(): void {
     const bar = this.bar;
     if (!bar) return;
     this.chosen = { family: 'bending', mode: 1 };
-    this.solid.run({ subject: this.barId, key: this.keyOf(bar) }, workerJob(solver, 'solidModes', { bar, modes: this.partials }));
+    this.solid.run({ subject: this.barId, key: this.keyOf(bar) }, workerJob(solver, 'solidModes', { bar, modes: this.partials, ...this.calibrationInputs }));
   }
 
   private modesOf(analysis: BarAnalysis): { family: Family; mode: ModeResult }[] {
@@ -110,7 +113,8 @@ export class BwSolidCheck extends LitElement {
       return html`<p class="muted">The 3D model covers rectangular bars; ${bar.section.shape === 'tube' ? 'tubes' : 'rods'} stay on the line model, whose results are above.</p>`;
     const state = this.solid.state(this.barId);
     const current = state.valueBinding?.key === this.keyOf(bar);
-    const analysis = state.value;
+    const analysis = state.value?.analysis ?? null;
+    const calibration = state.value?.calibration ?? null;
     const rows = analysis ? this.modesOf(analysis) : [];
     const chosen = rows.find((row) => row.family === this.chosen.family && row.mode.mode === this.chosen.mode) ?? rows[0];
     const plotted: PlottedMode[] = chosen?.mode.shape
@@ -132,6 +136,9 @@ export class BwSolidCheck extends LitElement {
         ? html`<p class="muted" data-testid="solid-status">
               ${current ? 'For the shape shown' : 'For an earlier shape: the bar has changed since'}${state.latencyMs !== null ? html`; answered in <span data-testid="solid-time">${formatNumber(state.latencyMs / 1000, 2)}</span> s` : nothing}${state.workerMs !== null ? html`, <span data-testid="solid-worker-time">${formatNumber(state.workerMs / 1000, 2)}</span> s of it solving` : nothing}
               (${analysis.mesh.elements} elements${analysis.material?.assumed.length ? `; assumed: ${analysis.material.assumed.join(', ')}` : ''}).
+              ${calibration
+                ? html`<span data-testid="solid-calibrated">Material from this bar's ${calibration.steps} measured round${calibration.steps === 1 ? '' : 's'}: E ${formatNumber(calibration.E_GPa, 2)} GPa and G ${formatNumber(calibration.G_GPa, 3)} GPa, the other constants scaled with them.</span>`
+                : nothing}
             </p>
             <div class="scroll">
               <table data-testid="solid-modes">

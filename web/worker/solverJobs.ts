@@ -67,7 +67,9 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
   /** One bar on the solid model (about a second; its own worker, so a cancel stops only it). */
   solidModes(payload, job) {
     job.progress(0, 1);
-    return analyzeBar(payload.bar, { theory: 'solid', modes: payload.modes, shapes: true });
+    const calibration = payload.session && payload.session.steps.length > 0 ? summaryOf(payload.session, payload.lot) : null;
+    const bar = calibration ? { ...correctedBar(payload.bar, calibration), material: calibratedMaterial(payload.bar.material, calibration) } : payload.bar;
+    return { analysis: analyzeBar(bar, { theory: 'solid', modes: payload.modes, shapes: true }), calibration };
   },
 
   /** Many bars, one at a time, yielding between bars so a cancel can arrive. */

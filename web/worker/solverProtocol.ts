@@ -26,6 +26,16 @@ export interface AnalyzeManyPayload {
 export interface SolidModesPayload {
   bar: BarFile;
   modes: number;
+  /** The bar's session, once it has measurements: the 3D model then takes the calibrated E and G (the other constants scaled with them) and the bar as the session believes it is. */
+  session?: SessionFile;
+  /** What the bar's lot taught (the calibration's prior), with `session`. */
+  lot?: LotPrior | null;
+}
+
+/** A bar on the 3D model, and the calibration its material came from (null: the bar file's material). */
+export interface SolidModesResult {
+  analysis: BarAnalysis;
+  calibration: CalibrationSummary | null;
 }
 
 /** Plan an undercut reaching the targets (with progress; cancellable). */
@@ -83,7 +93,7 @@ export interface AnalyzeManyEntry {
 export type SolverJobs = {
   analyze: { payload: AnalyzePayload; result: AnalyzeResult };
   analyzeMany: { payload: AnalyzeManyPayload; result: AnalyzeManyEntry[] };
-  solidModes: { payload: SolidModesPayload; result: BarAnalysis };
+  solidModes: { payload: SolidModesPayload; result: SolidModesResult };
   design: { payload: DesignPayload; result: DesignResult };
   nextCut: { payload: NextCutPayload; result: NextCutAdvice };
   resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };
