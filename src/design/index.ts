@@ -6,3 +6,4 @@ export * from './adviseBlankLength.ts';
 export * from './whereToCutMap.ts';
 export * from './stationTable.ts';
 export * from './profileTemplateSvg.ts';
+export * from './workshopLimits.ts';
