@@ -7,3 +7,4 @@ export * from './whereToCutMap.ts';
 export * from './stationTable.ts';
 export * from './profileTemplateSvg.ts';
 export * from './workshopLimits.ts';
+export * from './designBarSolid.ts';

@@ -1,6 +1,7 @@
 import { InputError } from './InputError.ts';
 import { parseBarFileGrain, parseBarFileMaterial, type BarFileGrain, type BarFileMaterial } from './barFileMaterial.ts';
 import { isWoodMaterial, resolveWoodConstants } from './woodConstants.ts';
+import { isJsonObject as isObject, positiveNumber } from './jsonFields.ts';
 
 export type { BarFileGrain, BarFileMaterial } from './barFileMaterial.ts';
 
@@ -33,18 +34,6 @@ export interface BarFileHole {
   x_mm: number;
   diameter_mm: number;
   z_mm?: number;
-}
-
-type Json = Record<string, unknown>;
-
-function isObject(value: unknown): value is Json {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
-
-function positiveNumber(source: string, field: string, value: unknown, unit: string): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number${unit ? ` in ${unit}` : ''}`);
-  if (value <= 0) throw new InputError(source, field, `must be greater than 0${unit ? ` ${unit}` : ''} (got ${value})`);
-  return value;
 }
 
 function parseSection(source: string, value: unknown): BarFileSection {

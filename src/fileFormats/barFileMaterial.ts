@@ -4,6 +4,7 @@
 // or a preset by name; and how the growth rings run through the thickness.
 import { InputError } from './InputError.ts';
 import { isMaterialPresetName, materialPresetNames } from './materialPresetNames.ts';
+import { isJsonObject as isObject, type JsonObject as Json, positiveNumber } from './jsonFields.ts';
 
 /** The orthotropic constants a wooden bar's material may add (GPa; Poisson ratios ν_ij = −ε_j/ε_i under stress along i). */
 export interface OrthotropicConstants {
@@ -47,18 +48,6 @@ export type BarFileMaterial =
  * rings' angle to the thickness direction in degrees (0 = radial, 90 = tangential). Default radial.
  */
 export type BarFileGrain = { through_thickness: 'radial' | 'tangential' } | { ring_angle_deg: number };
-
-type Json = Record<string, unknown>;
-
-function isObject(value: unknown): value is Json {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
-
-function positiveNumber(source: string, field: string, value: unknown, unit: string): number {
-  if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number${unit ? ` in ${unit}` : ''}`);
-  if (value <= 0) throw new InputError(source, field, `must be greater than 0${unit ? ` ${unit}` : ''} (got ${value})`);
-  return value;
-}
 
 function parseShearCoefficient(source: string, value: unknown): number | undefined {
   if (value === undefined) return undefined;

@@ -4,6 +4,7 @@ import { checkA4 } from './concertPitch.ts';
 import { parseNote } from './noteName.ts';
 import { parseBarFile, type BarFileMaterial } from './barFile.ts';
 import { InputError, isInputError } from './InputError.ts';
+import { isJsonObject as isObject } from './jsonFields.ts';
 
 /** A chime-set file, version 1 (mm, g, Hz, cents). */
 export interface ChimeSetFile {
@@ -30,8 +31,6 @@ export interface ChimeSetFile {
   saw_kerf_mm: number;
 }
 
-type Json = Record<string, unknown>;
-const isObject = (value: unknown): value is Json => typeof value === 'object' && value !== null && !Array.isArray(value);
 
 function positive(source: string, field: string, value: unknown, unit: string): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number in ${unit}`);

@@ -8,15 +8,10 @@ import { keyboardFileFormat, keyboardFileVersion, type KeyboardFile, type Keyboa
 import { parseSpans } from './keyboardFileSpans.ts';
 import { midiToNoteName } from './noteName.ts';
 import { parseWorkshop } from './workshopFile.ts';
+import { isJsonObject as isObject } from './jsonFields.ts';
 
 export * from './keyboardFileTypes.ts';
 export { spanIndexOf } from './keyboardFileSpans.ts';
-
-type Json = Record<string, unknown>;
-
-function isObject(value: unknown): value is Json {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
 
 function number(source: string, field: string, value: unknown, rule: (n: number) => string | null): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number (got ${JSON.stringify(value)})`);

@@ -3,7 +3,7 @@ import { parseNote } from './noteName.ts';
 import { InputError } from './InputError.ts';
 import type { NoteSpan } from './keyboardFileTypes.ts';
 
-type Json = Record<string, unknown>;
+import type { JsonObject as Json } from './jsonFields.ts';
 
 /**
  * Validates a schedule of note spans (`[{ "from": NOTE, "to": NOTE, … }]`) that must cover the

@@ -3,7 +3,7 @@
 // Written by `barwright lots add`, read by `next-cut --lots` and `plan --lots`.
 import { InputError } from './InputError.ts';
 import { parseNote } from './noteName.ts';
-import { isJsonObject } from './sessionFileSteps.ts';
+import { isJsonObject } from './jsonFields.ts';
 
 /** What one finished bar's session learnt about its wood. */
 export interface LotBarRecord {

@@ -9,7 +9,8 @@ import type { CutLimitsInput } from './cutLimitsInput.ts';
 import type { SessionLog, SessionLogTarget } from './sessionFileTypes.ts';
 import { parseNote } from './noteName.ts';
 import { checkA4, midiToHz, standardA4Hz } from './concertPitch.ts';
-import { isJsonObject, parseSessionLogStep, parseTemperature } from './sessionFileSteps.ts';
+import { isJsonObject } from './jsonFields.ts';
+import { parseSessionLogStep, parseTemperature } from './sessionFileSteps.ts';
 
 export type * from './sessionFileTypes.ts';
 

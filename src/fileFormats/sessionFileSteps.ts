@@ -3,11 +3,7 @@
 import { InputError, isInputError } from './InputError.ts';
 import { parseBarFile } from './barFile.ts';
 import type { SessionLogStep } from './sessionFileTypes.ts';
-
-/** True for a plain JSON object (not null, not an array). */
-export function isJsonObject(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
+import { isJsonObject } from './jsonFields.ts';
 
 /** Longest free-text note kept in a step (characters). */
 const noteLimit = 4000;

@@ -2,7 +2,8 @@
 // between two versions of a log is reported so it can be shown to the maker before it is saved.
 import { InputError } from './InputError.ts';
 import { parseSessionFile, type SessionLogStep } from './sessionFile.ts';
-import { isJsonObject, parseSessionLogStep } from './sessionFileSteps.ts';
+import { isJsonObject } from './jsonFields.ts';
+import { parseSessionLogStep } from './sessionFileSteps.ts';
 
 /** One difference between an older and a newer version of a session log. */
 export interface SessionLogChange {

@@ -2,6 +2,7 @@
 // `workshop` section of keyboard and project files): the tools a maker cuts undercuts with and
 // the shop's own rules. The designer's limits follow from it (src/design/workshopLimits.ts).
 import { InputError } from './InputError.ts';
+import { isJsonObject as isObject, type JsonObject as Json } from './jsonFields.ts';
 
 /**
  * What a tool is. Band saw: roughs the arch out with the bar on its side (its kerf is finished
@@ -74,12 +75,6 @@ export const defaultWorkshop: Workshop = {
   cord_holes: { diameter_mm: 6, clearance_mm: 3 },
   min_thickness_fraction: 0.25,
 };
-
-type Json = Record<string, unknown>;
-
-function isObject(value: unknown): value is Json {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
 
 function numberIn(source: string, field: string, value: unknown, rule: (n: number) => string | null): number {
   if (typeof value !== 'number' || !Number.isFinite(value)) throw new InputError(source, field, `must be a number (got ${JSON.stringify(value)})`);

@@ -37,7 +37,7 @@ export interface BellBarForNote {
   support_points_mm: [number, number];
   torsion: { mode: number; hz: number; ratio: number }[];
   lateral: { mode: number; hz: number; ratio: number }[];
-  /** Torsion or lateral modes within 50 cents of partials 1–3 (the solver's own check). */
+  /** Torsion or lateral modes within beating distance of partials 1–3 (collisionWarnings' rule in Hz). */
   warnings: string[];
 }
 

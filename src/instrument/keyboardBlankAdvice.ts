@@ -6,6 +6,7 @@ import { keyboardLimits, type KeyboardNote } from './keyboardNotes.ts';
 import { defaultWorkshop, type Workshop } from '../fileFormats/workshopFile.ts';
 import type { LengthWindow } from './smoothLengths.ts';
 import { stableHash } from './stableHash.ts';
+import { defined } from '../fileFormats/jsonFields.ts';
 
 /** One blank-advice task: plain data, for any worker. */
 export interface BlankAdviceJob {
@@ -99,6 +100,7 @@ const maxGap = 7;
  */
 export function notesToAdvise(spans: readonly (readonly KeyboardNote[])[], advised: ReadonlyMap<string, { feasible: boolean }>): KeyboardNote[] {
   const wanted: KeyboardNote[] = [];
+  const adviceFor = (name: string) => defined(advised.get(name), `blank advice for ${name}`);
   for (const span of spans) {
     const ends = [span[0]!, span[span.length - 1]!];
     const missingEnds = ends.filter((n) => !advised.has(n.name));
@@ -111,8 +113,8 @@ export function notesToAdvise(spans: readonly (readonly KeyboardNote[])[], advis
       const a = known[k]!;
       const b = known[k + 1]!;
       if (b.i - a.i <= 1) continue;
-      const differ = advised.get(a.n.name)!.feasible !== advised.get(b.n.name)!.feasible;
-      const bothFeasible = advised.get(a.n.name)!.feasible && advised.get(b.n.name)!.feasible;
+      const differ = adviceFor(a.n.name).feasible !== adviceFor(b.n.name).feasible;
+      const bothFeasible = adviceFor(a.n.name).feasible && adviceFor(b.n.name).feasible;
       if (differ || (bothFeasible && b.i - a.i > maxGap)) wanted.push(span[Math.floor((a.i + b.i) / 2)]!);
     }
   }
@@ -132,6 +134,7 @@ function windowOf(advice: StoredBlankAdvice): LengthWindow | undefined {
  */
 export function noteBlankWindows(spans: readonly (readonly KeyboardNote[])[], advised: ReadonlyMap<string, StoredBlankAdvice>): Map<string, NoteBlankWindow> {
   const result = new Map<string, NoteBlankWindow>();
+  const adviceFor = (name: string) => defined(advised.get(name), `blank advice for ${name}`);
   for (const span of spans) {
     const known = span.filter((n) => advised.has(n.name));
     for (const note of span) {
@@ -144,8 +147,8 @@ export function noteBlankWindows(spans: readonly (readonly KeyboardNote[])[], ad
       const below = [...known].reverse().find((n) => n.midi < note.midi);
       const above = known.find((n) => n.midi > note.midi);
       if (!below || !above) throw new Error(`internal: ${note.name} lies outside its span's advised notes`);
-      const a = advised.get(below.name)!;
-      const b = advised.get(above.name)!;
+      const a = adviceFor(below.name);
+      const b = adviceFor(above.name);
       const wa = windowOf(a);
       const wb = windowOf(b);
       const anchors = [below.name, above.name];

@@ -8,6 +8,7 @@ import { runKeyboardTask, type KeyboardTask, type KeyboardTaskResult } from './k
 import { inThreadRunner, runBatch, type BatchRunner } from './runBatch.ts';
 import { woodCautions } from './workshopCautions.ts';
 import { defaultWorkshop } from '../fileFormats/workshopFile.ts';
+import { defined } from '../fileFormats/jsonFields.ts';
 
 /** A keyboard plan: blank advice, schedule and every designed bar, as stored and resumed (format "barwright.keyboard-plan"). */
 export interface KeyboardPlan {
@@ -110,7 +111,7 @@ export async function planKeyboard(file: KeyboardFile, options: PlanKeyboardOpti
   let roundsDone = 0;
   for (;;) {
     const advised = new Map(Object.entries(advice));
-    const wanted = notesToAdvise(spans, advised).map((n) => adviceJobs.get(n.name)!);
+    const wanted = notesToAdvise(spans, advised).map((n) => defined(adviceJobs.get(n.name), `blank advice for ${n.name}`));
     if (wanted.length === 0 || options.signal?.aborted) break;
     const outcome = await runBatch(wanted, (job) => job.key, adviseRunner, {
       ...(options.signal ? { signal: options.signal } : {}),

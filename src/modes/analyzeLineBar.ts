@@ -50,7 +50,7 @@ function withinReach(frequencies: Float64Array, reach: number): Float64Array {
  * The line model's analysis (analyzeBar for the beam theories). Vibration modes of a free–free bar: the N lowest vertical bending modes (the tuned partials)
  * with ratios, node positions and optional shapes; the lateral bending and torsion modes in the
  * same range (up to 50 cents above the highest of partial N and partial 3; at least the first of
- * each); warnings for any within 50 cents of bending partials 1–3. Timoshenko (default) or
+ * each); warnings for any within beating distance of bending partials 1–3 (collisionDistanceHz). Timoshenko (default) or
  * Euler–Bernoulli finite elements on a mesh with a node at every profile station; banded
  * shift-invert Lanczos. Pure and synchronous.
  */

@@ -5,20 +5,42 @@ export interface OtherMode {
   readonly hz: number;
 }
 
-/** Default collision window: 50 cents (issue: a few tens of cents make a bar buzz or beat). */
+/**
+ * How far beyond the tuned partials other modes are listed, cents (50: wide enough to hold every
+ * mode the beating rule below can flag for partials above about 210 Hz, where 6 Hz is 50 cents).
+ */
 export const collisionWindowCents = 50;
 
 /**
- * Warnings for torsion or lateral modes within `windowCents` of one of the first three bending
- * partials, e.g. "torsion mode 1 is 18 cents from bending partial 3" (cents = 1200·log₂ ratio,
- * rounded to whole cents, sign dropped), nearest first.
+ * The closest, in Hz, a torsion, lateral or longitudinal mode may come to a tuned partial before
+ * it can make the bar buzz or beat: 6 Hz below 1 kHz, 15 Hz below 2 kHz, 30 Hz above
+ * (common practice, from memory; ../shared/brief.md, "other modes"). Beats are |f₁ − f₂| per
+ * second, so the rule is a distance in Hz, not in cents.
  */
-export function collisionWarnings(bendingHz: readonly number[], others: readonly OtherMode[], windowCents = collisionWindowCents): string[] {
+export function collisionDistanceHz(partialHz: number): number {
+  if (partialHz < 1000) return 6;
+  if (partialHz < 2000) return 15;
+  return 30;
+}
+
+/** The beating rule in words, for messages. */
+export const collisionRuleText = '6 Hz below 1 kHz, 15 Hz below 2 kHz, 30 Hz above';
+
+/**
+ * Warnings for torsion, lateral or longitudinal modes within the beating distance
+ * (collisionDistanceHz) of one of the first three bending partials, nearest first, e.g.
+ * "torsion mode 1 is 18 cents from bending partial 3 (4.2 Hz apart; closer than 15 Hz can beat)"
+ * (cents = 1200·log₂ ratio, rounded to whole cents, sign dropped).
+ */
+export function collisionWarnings(bendingHz: readonly number[], others: readonly OtherMode[]): string[] {
   const found: { cents: number; text: string }[] = [];
   bendingHz.slice(0, 3).forEach((partial, index) => {
+    const allowed = collisionDistanceHz(partial);
     for (const other of others) {
+      const apart = Math.abs(other.hz - partial);
+      if (apart > allowed) continue;
       const cents = Math.abs(1200 * Math.log2(other.hz / partial));
-      if (cents <= windowCents) found.push({ cents, text: `${other.family} mode ${other.mode} is ${Math.round(cents)} cents from bending partial ${index + 1}` });
+      found.push({ cents, text: `${other.family} mode ${other.mode} is ${Math.round(cents)} cents from bending partial ${index + 1} (${apart.toFixed(1)} Hz apart; closer than ${allowed} Hz can beat)` });
     }
   });
   return found.sort((a, b) => a.cents - b.cents).map((f) => f.text);

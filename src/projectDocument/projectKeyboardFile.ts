@@ -7,6 +7,7 @@ import { InputError } from '../fileFormats/InputError.ts';
 import { parseKeyboardFile } from '../fileFormats/keyboardFile.ts';
 import type { KeyboardFile, ResonatorEntry, SectionEntry, TuningEntry } from '../fileFormats/keyboardFileTypes.ts';
 import type { ProjectBar, ProjectFile, Register } from './projectFileTypes.ts';
+import { defined } from '../fileFormats/jsonFields.ts';
 
 /** What the maker chooses when planning from a project: which notes, and whether cut blanks keep their length. */
 export interface ProjectPlanChoice {
@@ -64,7 +65,7 @@ export function keyboardFileFromProject(project: ProjectFile, choice: ProjectPla
   const registers = new Map(instrument.registers.map((r) => [r.id, r]));
   const bars = project.bars
     .filter((bar) => registers.get(bar.register)?.family === 'keyboard' && bar.blank.section.shape === 'rect')
-    .map((bar) => ({ bar, midi: parseNote(bar.note).midi, register: registers.get(bar.register)! }))
+    .map((bar) => ({ bar, midi: parseNote(bar.note).midi, register: defined(registers.get(bar.register), `register ${bar.register} of ${bar.note}`) }))
     .sort((a, b) => a.midi - b.midi);
   if (bars.length === 0) throw new InputError(source, 'bars', 'set up at least one keyboard bar (rectangular blank) first: its section and register are the plan’s starting point');
   const governing = (midi: number): { bar: ProjectBar; register: Register } => [...bars].reverse().find((entry) => entry.midi <= midi) ?? bars[0]!;

@@ -11,6 +11,7 @@ import { materialPitchPrior, sessionTemperature, type SessionTemperature } from 
 import { warmBarMinutes, warmReadings, type WarmReading } from './warmReadings.ts';
 import type { LotPrior } from './lotPrior.ts';
 import { thicknessAt } from '../section/ThicknessProfile.ts';
+import { defined } from '../fileFormats/jsonFields.ts';
 
 /** A measurement set aside because no plausible model explains it. */
 export interface MeasurementFlag {
@@ -213,7 +214,7 @@ export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}
       model: shape.model,
       measuredCents: measured[k]!.map((c, n) => (excluded(k, n) ? null : c)),
       sigmaCents: sigmas[k]!,
-      removals: shape.removals.map((removal) => ({ parameter: cutIndex.get(removal.cut)!, values: removal.values })),
+      removals: shape.removals.map((removal) => ({ parameter: defined(cutIndex.get(removal.cut), 'the cut a removal belongs to'), values: removal.values })),
       ...(temperatureIndex === null || away[k] === 0 ? {} : { offsets: [{ parameter: temperatureIndex, cents: -away[k]! }] }),
       ...(shape.readings ? { thicknessReadings: readingsOf(shape) } : {}),
     }));

@@ -1,6 +1,7 @@
 import { bellBarForNote, type BellBarStock, tuneBellBarOvertone, metalCautions, signedNumber } from '../../instrument/index.ts';
 import { checkA4, parseBarFile, InputError } from '../../fileFormats/index.ts';
 import { noteToHz } from '../../pitch/index.ts';
+import { collisionRuleText } from '../../modes/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 
 /** `barwright bellbar`: a uniform bell bar for a note — length, partials and intervals, supports, collisions. */
@@ -61,7 +62,7 @@ export const bellbarCommand: Command = {
       formatTable([['partial', 'Hz', 'ratio', 'nearest interval'], ...result.partials.map((p) => [String(p.mode), fixed(p.hz, 1), fixed(p.ratio, 3), `${p.interval.name} ${signedNumber(p.interval.cents, 0)}¢`])]),
       '',
       `Torsion: ${result.torsion.slice(0, 3).map((m) => `${fixed(m.hz, 0)} Hz`).join(', ')}; lateral: ${result.lateral.slice(0, 3).map((m) => `${fixed(m.hz, 0)} Hz`).join(', ')}`,
-      result.warnings.length ? result.warnings.map((w) => `warning: ${w}`).join('\n') : 'No torsion or lateral mode within 50 cents of partials 1–3.',
+      result.warnings.length ? result.warnings.map((w) => `warning: ${w}`).join('\n') : `No torsion or lateral mode within beating distance of partials 1–3 (${collisionRuleText}).`,
       '',
       ...(tuning
         ? [

@@ -1,4 +1,4 @@
-import { designBar, type DesignRequest, parseToleranceList, profileTemplateSvg, stationTable, stationTableCsv, whereToCutMap, type CutLimitsInput } from '../../design/index.ts';
+import { designBar, designBarSolid, type DesignRequest, type SolidDesignResult, parseToleranceList, profileTemplateSvg, stationTable, stationTableCsv, whereToCutMap, type CutLimitsInput } from '../../design/index.ts';
 import { InputError, parseWorkshopFile } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
@@ -16,7 +16,7 @@ export const designCommand: Command = {
   usage:
     'barwright design BAR (--note NAME | --hz F) [--a4 HZ] [--ratios 1:4:10|1:4|1:3|1:3:6|fundamental|A:B:C] [--tolerance-cents 2,5,15] ' +
     '[--workshop FILE] [--min-thickness-mm T] [--uncut-end-mm L] [--max-slope S] [--tool-radius-mm R] [--allow-shortening [--max-shortening-mm M]] ' +
-    '[--theory timoshenko|euler-bernoulli] [--session SESSION [--lots LOTS]] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
+    '[--theory timoshenko|euler-bernoulli|solid] [--session SESSION [--lots LOTS]] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       note: { type: 'string' },
@@ -43,7 +43,8 @@ export const designCommand: Command = {
     if (positionals.length !== 1) throw new InputError('command line', 'BAR', 'give exactly one bar file');
     if ((values.note === undefined) === (values.hz === undefined)) throw new InputError('command line', '--note', 'give either --note NAME or --hz F');
     const theory = values.theory ?? 'timoshenko';
-    if (theory !== 'timoshenko' && theory !== 'euler-bernoulli') throw new InputError('command line', '--theory', `must be timoshenko or euler-bernoulli (got "${theory}")`);
+    if (theory !== 'timoshenko' && theory !== 'euler-bernoulli' && theory !== 'solid') throw new InputError('command line', '--theory', `must be timoshenko, euler-bernoulli or solid (got "${theory}")`);
+    const lineTheory = theory === 'solid' ? 'timoshenko' : theory;
     const hz = numberOption(values.hz, 'hz', positive);
     const a4 = numberOption(values.a4, 'a4', positive);
     const limits: CutLimitsInput = {};
@@ -72,14 +73,15 @@ export const designCommand: Command = {
       limits,
       limits_given_by: 'given on the command line',
       ...(workshop ? { workshop } : {}),
-      theory,
+      theory: lineTheory,
     };
     if (values.lots !== undefined && values.session === undefined) throw new InputError('command line', '--lots', 'goes with --session (the lot of the session’s bar)');
     const calibrated = values.session === undefined ? null : await sessionSummary(values.session, values.lots, io);
     if (calibrated && theory !== 'timoshenko') throw new InputError('command line', '--theory', 'a session calibrates the timoshenko model: leave --theory out with --session');
-    const result = calibrated ? calibratedDesign(bar, request, calibrated.summary, {}, 'command line') : designBar(bar, request, {}, 'command line');
+    const solid: SolidDesignResult | undefined = theory === 'solid' ? designBarSolid(bar, request, {}, 'command line') : undefined;
+    const result = solid ?? (calibrated ? calibratedDesign(bar, request, calibrated.summary, {}, 'command line') : designBar(bar, request, {}, 'command line'));
     const table = stationTable(result.bar);
-    const map = values.map ? whereToCutMap(result.bar, { theory }) : undefined;
+    const map = values.map ? whereToCutMap(result.bar, { theory: lineTheory }) : undefined;
     const subtitle = `${result.note ?? `${result.target_hz[0]} Hz`} at A4 = ${result.a4_hz} Hz, ratios ${result.ratios.join(':')}, ${result.bar.length_mm} mm × ${result.bar.section.shape === 'rect' ? result.bar.section.width_mm : 0} mm, blank ${result.bar.section.shape === 'rect' ? result.bar.section.thickness_mm : 0} mm`;
     if (values.out) await io.writeFile(values.out, `${toJson(result.bar)}\n`);
     if (values.template) await io.writeFile(values.template, profileTemplateSvg(result.bar, { title: result.bar.label ?? path, subtitle, cord_holes_mm: result.cord_holes_mm }));
@@ -96,8 +98,16 @@ export const designCommand: Command = {
     const shift = result.cord_holes?.shift_cents;
     lines.push(
       formatTable([
-        ['partial', 'target Hz', 'predicted Hz', 'cents', 'tolerance', ...(shift ? ['drilling moves (cents)'] : [])],
-        ...result.target_hz.map((target, k) => [String(k + 1), fixed(target, 2), fixed(result.predicted_hz[k]!, 2), fixed(result.cents_error[k]!, 2), `±${result.tolerance_cents[k]}`, ...(shift ? [signed(shift[k]!)] : [])]),
+        ['partial', 'target Hz', solid ? 'solid Hz' : 'predicted Hz', 'cents', 'tolerance', ...(solid ? ['line model Hz', 'line cents'] : []), ...(shift ? ['drilling moves (cents)'] : [])],
+        ...result.target_hz.map((target, k) => [
+          String(k + 1),
+          fixed(target, 2),
+          fixed(result.predicted_hz[k]!, 2),
+          fixed(result.cents_error[k]!, 2),
+          `±${result.tolerance_cents[k]}`,
+          ...(solid ? [fixed(solid.solid.line_model_hz[k]!, 2), fixed(solid.solid.line_model_cents[k]!, 2)] : []),
+          ...(shift ? [signed(shift[k]!)] : []),
+        ]),
       ]),
     );
     lines.push('');
@@ -128,6 +138,10 @@ export const designCommand: Command = {
       lines.push(result.remedies.length ? 'Remedies, cheapest first (each designed again and checked):' : 'No single change tried meets the target.');
       result.remedies.forEach((remedy, i) => lines.push(`  ${i + 1}. ${remedy.change} (${remedy.kind} = ${Array.isArray(remedy.value) ? remedy.value.join(':') : remedy.value}; recovers ${fixed(remedy.cents_gained, 1)} cents)`));
     }
+    if (solid)
+      lines.push(
+        `Solid model: ${solid.solid.solid_solves} solid solves; the line model's targets corrected ${solid.solid.solid_solves - 1} time${solid.solid.solid_solves === 2 ? '' : 's'} until the solid partials met the tolerances${solid.solid.converged ? '' : ' (they did not)'}. The line model alone would call this arch ${solid.solid.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${fixed(c, 1)}`).join(' / ')} cents.`,
+      );
     for (const warning of result.warnings) lines.push(`Warning: ${warning}`);
     lines.push('');
     lines.push('Thickness every 5 mm from the centre line (rows inside the cut, the cord holes and the ends):');

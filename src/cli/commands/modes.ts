@@ -1,4 +1,4 @@
-import { analyzeBar, type BarAnalysis, type ModeResult } from '../../modes/index.ts';
+import { analyzeBar, collisionRuleText, type BarAnalysis, type ModeResult } from '../../modes/index.ts';
 import { InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
@@ -56,7 +56,7 @@ export const modesCommand: Command = {
       lines.push(formatTable([['mode', 'Hz', 'ratio to fundamental'], ...family.map((m) => [String(m.mode), fixed(m.hz, 1), fixed(m.ratio, 3)])]));
     }
     lines.push('');
-    lines.push(analysis.warnings.length ? analysis.warnings.map((w) => `warning: ${w}`).join('\n') : 'No torsion or lateral mode within 50 cents of partials 1–3.');
+    lines.push(analysis.warnings.length ? analysis.warnings.map((w) => `warning: ${w}`).join('\n') : `No torsion or lateral mode within beating distance of partials 1–3 (${collisionRuleText}).`);
     io.stdout(lines.join('\n'));
     return 0;
   },
@@ -91,6 +91,6 @@ function solidTable(title: string, analysis: BarAnalysis): string {
     lines.push('', name, family.length ? table(family, 'mode') : '(none in this range)');
   }
   lines.push('', 'line model ¢: the Timoshenko / St-Venant / rod line model\'s mode against the solid\'s, 1200·log2(f_line/f_solid); + means the line model is sharp.');
-  lines.push(analysis.warnings.length ? analysis.warnings.map((w) => `warning: ${w}`).join('\n') : 'No torsion, lateral or longitudinal mode within 50 cents of partials 1–3.');
+  lines.push(analysis.warnings.length ? analysis.warnings.map((w) => `warning: ${w}`).join('\n') : `No torsion, lateral or longitudinal mode within beating distance of partials 1–3 (${collisionRuleText}).`);
   return lines.join('\n');
 }

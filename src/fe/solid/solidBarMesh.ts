@@ -111,7 +111,11 @@ export function lengthSections(profile: ThicknessProfile, targetElements: number
       }
     }
   });
-  return Float64Array.from([...sections, ...extra].sort((a, b) => a - b));
+  // Two kinks one element apart each halve toward the other: their points meet and must not make
+  // an element of zero length (boundaries closer than a millionth of the bar's length are one).
+  const sorted = [...sections, ...extra].sort((a, b) => a - b);
+  const closest = 1e-6 * (sorted[sorted.length - 1]! - sorted[0]!);
+  return Float64Array.from(sorted.filter((x, k) => k === 0 || x - sorted[k - 1]! > closest));
 }
 
 /** The y of every lattice column (element boundaries and their midpoints). The half models span 0 … width/2; the full body mirrors them to −width/2 … width/2. */

@@ -1,4 +1,4 @@
-import { adviseBlankLength, designBar, type BarFile, type DesignRequest, type DesignResult } from '../../../src/index.ts';
+import { adviseBlankLength, designBar, designBarSolid, type BarFile, type DesignRequest, type DesignResult } from '../../../src/index.ts';
 import { measure, type BenchRow, type BenchSuite } from '../measure.ts';
 
 /** An invented demo blank of the generic dense hardwood (uniform, no cut yet). */
@@ -15,7 +15,8 @@ const cases: { name: string; bar: BarFile; request: DesignRequest }[] = [
 
 /**
  * `design` suite: median wall time of designBar for a bar within tolerance, and the number of
- * finite-element solves it took (deterministic); plus one blank-advisor run.
+ * finite-element solves it took (deterministic); plus one blank-advisor run, and designBarSolid
+ * (the solid model's outer rounds) on the typical and low bars.
  */
 export const designSuite: BenchSuite = {
   name: 'design',
@@ -35,6 +36,18 @@ export const designSuite: BenchSuite = {
       { warmup: 1, minRuns: 3, minTimeMs: 0, maxRuns: 3 },
     );
     rows.push({ suite: 'design', case: 'advise blank C4 1:4:10', ...advice, detail: { solves } });
+    // The solid model's verdict in outer rounds (space mapping): target ≤ 15 s a bar.
+    for (const { name, bar, request } of cases.slice(0, 2)) {
+      let result: ReturnType<typeof designBarSolid> | undefined;
+      const timing = await measure(() => (result = designBarSolid(bar, request)), { warmup: 0, minRuns: 2, minTimeMs: 0, maxRuns: 2 });
+      const worst = Math.max(...result!.cents_error.map((c, k) => Math.abs(c) / result!.tolerance_cents[k]!));
+      rows.push({
+        suite: 'design',
+        case: `${name}, solid theory`,
+        ...timing,
+        detail: { solid_solves: result!.solid.solid_solves, line_solves: result!.solid.line_solves, feasible: String(result!.feasible), worst_of_tolerance: worst, target_ms: 15000 },
+      });
+    }
     return rows;
   },
 };
