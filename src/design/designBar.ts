@@ -115,7 +115,7 @@ export function designBar(bar: BarFile, request: DesignRequest, run: DesignRunOp
   if (!result.feasible && !stopped && request.remedies !== false) {
     stage = 'remedies';
     const designAgain = (changed: BarFile, changedRequest: DesignRequest, changedRun: DesignRunOptions): DesignResult => designBar(changed, changedRequest, changedRun, source);
-    Object.assign(result, designRemedies(bar, request, result, target, current, { run, designAgain, ...(request.remedy_kinds ? { kinds: request.remedy_kinds } : {}) }));
+    Object.assign(result, designRemedies(bar, request, result, target, current, { run, designAgain, ...(request.remedy_kinds ? { kinds: request.remedy_kinds } : {}), firstOnly: request.remedy_first_only ?? false }));
   }
   return result;
 }

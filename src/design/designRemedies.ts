@@ -182,6 +182,8 @@ export interface RemedyOptions {
   readonly designAgain: (bar: BarFile, request: DesignRequest, run: DesignRunOptions) => DesignResult;
   /** Only these kinds (default: every kind that applies). The keyboard plan asks for the blank only. */
   readonly kinds?: readonly RemedyKind[];
+  /** Stop at the first kind whose search meets the target (the keyboard plan needs one blank, not a list). */
+  readonly firstOnly?: boolean;
 }
 
 /** Smallest tool radius (mm) a remedy offers: a 6 mm spindle sleeve, about the smallest sold (common practice). */
@@ -227,21 +229,23 @@ export function designRemedies(bar: BarFile, request: DesignRequest, result: Des
   const thickness = bar.section.thickness_mm;
   if (wanted('blank_length_mm')) {
     // A sharp fundamental wants a longer blank (f₁ ∝ 1/L², Blevins 1979, table 8-1), a flat one
-    // a shorter; ratios out of reach, either way.
-    const directions = sharp ? [1] : flat ? [-1] : [-1, 1];
+    // a shorter: that way first. The other way too: a blank too long for the ratios leaves the
+    // closest shape's fundamental sharp while the overtones fall flat (the search gives a way
+    // up after its first step when that step loses ground).
+    const directions = sharp ? [1, -1] : [-1, 1];
     for (const direction of directions)
       searches.push({ kind: 'blank_length_mm', from: length, ladder: ladder(length, length * (1 + 0.3 * direction), 0.03 * length, 4), snap: (v) => Math.round(v) });
   }
   if (wanted('blank_thickness_mm')) {
     // A thinner blank lowers the fundamental (f₁ ∝ t) and, more slender, reaches higher ratios.
-    const directions = sharp ? [-1] : flat ? [1] : [-1, 1];
+    const directions = flat ? [1, -1] : [-1, 1];
     for (const direction of directions)
       searches.push({ kind: 'blank_thickness_mm', from: thickness, ladder: ladder(thickness, thickness * (1 + 0.35 * direction), 0.5, 4), snap: (v) => Math.round(v * 2) / 2 });
   }
   const relaxations: Relaxation[] = [];
   const remedies: (Remedy & { rank: number })[] = [];
   for (const search of searches) {
-    if (options.run.signal?.aborted) break;
+    if (options.run.signal?.aborted || (options.firstOnly && remedies.length > 0)) break;
     const { met, tried } = runSearch(search, shortfall, (value) => design(search.kind, value));
     const gains = tried.map((t) => ({ value: t.value, gained: round(shortfall - shortfallCents(t.result), 2), met: t.result.feasible }));
     const nearest = gains.filter((g) => g.gained > 0).sort((a, b) => Math.abs(a.value - search.from) - Math.abs(b.value - search.from))[0] ?? gains[0];
@@ -256,7 +260,7 @@ export function designRemedies(bar: BarFile, request: DesignRequest, result: Des
       });
     if (met) remedies.push({ kind: search.kind, value: met.value, cents_gained: round(shortfall, 2), change: describeChange(search.kind, met.value, search.from), rank: costRank(search.kind, met.value, search.from) });
   }
-  if (wanted('ratios') && !options.run.signal?.aborted) {
+  if (wanted('ratios') && !options.run.signal?.aborted && !(options.firstOnly && remedies.length > 0)) {
     // Fewer partials, one at a time (1:4:10 → 1:4 → the fundamental alone): the first that works.
     for (let count = target.ratios.length - 1; count >= 1; count--) {
       const fewer = target.ratios.slice(0, count);

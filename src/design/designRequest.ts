@@ -35,6 +35,8 @@ export interface DesignRequest {
   readonly remedies?: boolean;
   /** Only these kinds of remedy (default every kind that applies); a keyboard plan asks for the blank only. */
   readonly remedy_kinds?: readonly RemedyKind[];
+  /** Stop looking at the first remedy found (in the order cheapest kinds are searched); default false. */
+  readonly remedy_first_only?: boolean;
 }
 
 /** Progress of a running design, for a worker to post; the callback may return false to stop. */

@@ -25,6 +25,7 @@ export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
     workshop: job.workshop,
     limits_given_by: 'the keyboard file',
     remedy_kinds: ['blank_length_mm', 'blank_thickness_mm'],
+    remedy_first_only: true,
   };
   let design: DesignResult = designBar(job.blank, request, {}, source);
   const notes: string[] = job.schedule_note ? [job.schedule_note] : [];
