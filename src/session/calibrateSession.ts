@@ -89,6 +89,11 @@ export interface CalibrateOptions {
   readonly priors?: CalibrationPriors;
   /** What finished bars of the same lot taught: the prior for E/ρ, G/ρ, the corrections and the temperature coefficient. */
   readonly lot?: LotPrior | null;
+  /**
+   * The per-partial correction's prior from a finer model (the solid model's gap to the line model
+   * on the shape about to be cut, per unit arch depth): replaces the default and the lot's.
+   */
+  readonly correctionPrior?: readonly { readonly mean: number; readonly sigma: number }[];
 }
 
 /** One-sigma precision of a caliper reading, m: a dial caliper reads to 0.02 mm and the bar sits a little off square (common practice). */
@@ -191,7 +196,7 @@ export function calibrateSession(log: SessionLog, options: CalibrateOptions = {}
   const unit = (i: number): number[] => Array.from({ length: size }, (_, j) => (j === i ? 1 : 0));
   const youngPrior = lot ? { mean: lot.lnSpecificYoung.mean + Math.log(guess.density), sigma: lot.lnSpecificYoung.sigma } : { mean: Math.log(guess.youngModulus), sigma: priors.lnYoungSigma };
   const shearPrior = lot ? { mean: lot.lnSpecificShear.mean + Math.log(guess.density), sigma: lot.lnSpecificShear.sigma } : { mean: Math.log(guess.shearModulus), sigma: priors.lnShearSigma };
-  const correctionPrior = (n: number): { mean: number; sigma: number } => lot?.corrections[n] ?? { mean: 0, sigma: priors.correctionSigma };
+  const correctionPrior = (n: number): { mean: number; sigma: number } => options.correctionPrior?.[n] ?? lot?.corrections[n] ?? { mean: 0, sigma: priors.correctionSigma };
   const linearPriors: LinearPrior[] = [
     { coefficients: unit(0), ...youngPrior },
     { coefficients: unit(1), ...shearPrior },

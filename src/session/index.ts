@@ -27,3 +27,4 @@ export * from './cutCheckpoints.ts';
 export * from './handBias.ts';
 export * from './cutCautions.ts';
 export * from './nextCut.ts';
+export * from './nextCutSolid.ts';

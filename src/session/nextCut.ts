@@ -29,6 +29,8 @@ export interface NextCutOptions {
   readonly priors?: CalibrationPriors;
   /** What finished bars of the same lot taught (lotPrior): the calibration starts from it. */
   readonly lot?: LotPrior | null;
+  /** The correction's prior from a finer model (see CalibrateOptions; nextCutSolid sets it). */
+  readonly correctionPrior?: readonly { readonly mean: number; readonly sigma: number }[];
   /** Name used in error messages (a file name). */
   readonly source?: string;
   /** Called as the work advances (stage name, fraction 0…1): calibration, then planning. */
@@ -223,7 +225,7 @@ export function nextCut(session: unknown, options: NextCutOptions = {}): NextCut
   const tolerance = log.target.tolerance_cents;
   const tuned = targetHz.length;
   options.onProgress?.('calibrating', 0);
-  const calibration = calibrateSession(log, { ...(options.priors ? { priors: options.priors } : {}), lot: options.lot ?? null });
+  const calibration = calibrateSession(log, { ...(options.priors ? { priors: options.priors } : {}), lot: options.lot ?? null, ...(options.correctionPrior ? { correctionPrior: options.correctionPrior } : {}) });
   options.onProgress?.('planning', 0.5);
   const lastIndex = log.steps.length - 1;
   const last = log.steps[lastIndex]!;

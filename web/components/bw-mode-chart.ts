@@ -13,6 +13,8 @@ export interface PlottedMode {
   hz: number;
   nodes_mm: number[];
   shape?: { x_mm: number[]; displacement: number[] };
+  /** What to call it (default: the partial's name, e.g. "Fundamental"). */
+  name?: string;
 }
 
 /** `<bw-mode-chart .modes>` */
@@ -34,10 +36,12 @@ export class BwModeChart extends LitElement {
   @property({ attribute: false }) modes: PlottedMode[] = [];
   /** Bar length, mm (the x axis ends there). */
   @property({ type: Number, attribute: 'length' }) lengthMm: number | null = null;
+  /** What the curve shows (the y axis title). */
+  @property() quantity = 'Deflection (scaled)';
   private readonly lineChart = new LineChartController(this);
 
   protected override render() {
-    const described = this.modes.map((mode) => `${partialName(mode.mode - 1)} (${formatHz(mode.hz)} Hz): nodes at ${mode.nodes_mm.map((x) => formatMm(x)).join(', ')} mm`).join('; ');
+    const described = this.modes.map((mode) => `${mode.name ?? partialName(mode.mode - 1)} (${formatHz(mode.hz)} Hz): nodes at ${mode.nodes_mm.map((x) => formatMm(x)).join(', ')} mm`).join('; ');
     return html`<div class="frame"><canvas role="img" aria-label=${`Mode shapes. ${described}`}></canvas></div>`;
   }
 
@@ -50,7 +54,7 @@ export class BwModeChart extends LitElement {
       if (!shape) return [];
       return [
         {
-          label: `${partialName(mode.mode - 1)} · ${formatHz(mode.hz)} Hz`,
+          label: `${mode.name ?? partialName(mode.mode - 1)} · ${formatHz(mode.hz)} Hz`,
           data: shape.x_mm.map((x, i) => ({ x, y: shape.displacement[i]! })),
           borderColor: style.color,
           backgroundColor: style.color,
@@ -60,7 +64,7 @@ export class BwModeChart extends LitElement {
           pointStyle: style.point,
         },
         {
-          label: `Nodes of ${partialName(mode.mode - 1).toLowerCase()}`,
+          label: `Nodes of ${(mode.name ?? partialName(mode.mode - 1)).toLowerCase()}`,
           data: mode.nodes_mm.map((x) => ({ x, y: 0 })),
           borderColor: style.color,
           backgroundColor: '#ffffff',
@@ -77,7 +81,7 @@ export class BwModeChart extends LitElement {
       parsing: false,
       scales: {
         x: { type: 'linear', min: 0, max: this.lengthMm ?? undefined, title: { display: true, text: 'Position from the left end (mm)' } },
-        y: { title: { display: true, text: 'Deflection (scaled)' }, min: -1.1, max: 1.1 },
+        y: { title: { display: true, text: this.quantity }, min: -1.1, max: 1.1 },
       },
       plugins: { legend: { labels: { usePointStyle: true, filter: (item) => !item.text.startsWith('Nodes') } } },
     });

@@ -19,6 +19,7 @@ import './bw-cents-readout.ts';
 import './bw-mode-chart.ts';
 import './bw-cut-map.ts';
 import './bw-cautions.ts';
+import './bw-solid-check.ts';
 
 /** `<bw-shape-view .project bar-id>` */
 @customElement('bw-shape-view')
@@ -432,7 +433,12 @@ export class BwShapeView extends LitElement {
             <h3>What a cut does, along the bar</h3>
             <bw-cut-map .sensitivities=${this.cutMap} ?applicable=${rect} length=${this.shape?.length_mm ?? 0}></bw-cut-map>
           </section>
-          ${this.renderModes()} ${rect ? this.renderPlan() : nothing} ${this.renderEngineering()}
+          ${this.renderModes()}
+          <section class="panel" aria-labelledby="solid-heading">
+            <h3 id="solid-heading">On the 3D model</h3>
+            <bw-solid-check .bar=${bar.current} bar-id=${bar.id} partials=${registerOf(project, bar).ratios.length}></bw-solid-check>
+          </section>
+          ${rect ? this.renderPlan() : nothing} ${this.renderEngineering()}
         </div>
       </div>`;
   }

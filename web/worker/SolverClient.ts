@@ -2,7 +2,8 @@
 // (a bar's modes while dragging, a chime set, resonators) share one worker so they answer at
 // once; the keyboard overview's many-bar analysis has a worker of its own and stops between
 // bars when cancelled; a design and next-cut advice, which cannot stop mid-way, each get a
-// worker of their own (at most two at once), so cancelling one never touches another job.
+// worker of their own (at most two at once), as does a bar on the 3D solid model, so cancelling
+// one never touches another job.
 import { JobClient, type JobWorkerLike } from './JobClient.ts';
 import type { SolverJobs } from './solverProtocol.ts';
 
@@ -17,7 +18,7 @@ export class SolverClient extends JobClient<SolverJobs> {
     super({
       name: 'barwright-solver',
       spawn,
-      lanes: { analyze: 'quick', chimeSet: 'quick', resonators: 'quick', analyzeMany: 'batch', design: 'own', nextCut: 'own' },
+      lanes: { analyze: 'quick', chimeSet: 'quick', resonators: 'quick', analyzeMany: 'batch', design: 'own', nextCut: 'own', solidModes: 'own' },
       ownLimit: 2,
       spareWorkers: 1,
     });

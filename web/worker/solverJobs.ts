@@ -21,6 +21,12 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
     return { analysis, sensitivities };
   },
 
+  /** One bar on the solid model (about a second; its own worker, so a cancel stops only it). */
+  solidModes(payload, job) {
+    job.progress(0, 1);
+    return analyzeBar(payload.bar, { theory: 'solid', modes: payload.modes, shapes: true });
+  },
+
   /** Many bars, one at a time, yielding between bars so a cancel can arrive. */
   async analyzeMany(payload, job) {
     const results: SolverJobs['analyzeMany']['result'] = [];

@@ -18,6 +18,12 @@ export interface AnalyzeManyPayload {
   modes: number;
 }
 
+/** A bar on the 3D solid model (rectangular bars): its partials, torsion, lateral and longitudinal modes with their shapes. */
+export interface SolidModesPayload {
+  bar: BarFile;
+  modes: number;
+}
+
 /** Plan an undercut reaching the targets (with progress; cancellable). */
 export interface DesignPayload {
   bar: BarFile;
@@ -60,6 +66,7 @@ export interface AnalyzeManyEntry {
 export type SolverJobs = {
   analyze: { payload: AnalyzePayload; result: AnalyzeResult };
   analyzeMany: { payload: AnalyzeManyPayload; result: AnalyzeManyEntry[] };
+  solidModes: { payload: SolidModesPayload; result: BarAnalysis };
   design: { payload: DesignPayload; result: DesignResult };
   nextCut: { payload: NextCutPayload; result: NextCutResult };
   resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };

@@ -1,5 +1,5 @@
 import { InputError } from '../../fileFormats/index.ts';
-import { nextCut, type NextCutResult } from '../../session/index.ts';
+import { nextCut, nextCutSolid, type NextCutResult, type SolidCorrectionReport } from '../../session/index.ts';
 import { fixed, formatTable, parseOptions, toJson, type Command, type CommandIo } from '../command.ts';
 import { priorForSession, readLotFile, readSessionFile } from '../readSession.ts';
 
@@ -26,7 +26,7 @@ function statusLine(result: NextCutResult): string {
 }
 
 /** The human-readable report of a next-cut result. */
-function formatNextCut(result: NextCutResult, title: string): string {
+function formatNextCut(result: NextCutResult, title: string, solid: SolidCorrectionReport | null = null): string {
   const lines: string[] = [];
   const c = result.calibration;
   lines.push(title);
@@ -34,6 +34,10 @@ function formatNextCut(result: NextCutResult, title: string): string {
     `Calibrated model: E ${fixed(c.E_GPa, 2)} GPa (±${fixed(c.E_uncertainty_percent, 1)} %), G ${fixed(c.G_GPa, 3)} GPa (±${fixed(c.G_uncertainty_percent, 1)} %), density ${fixed(result.calibrated_material.density_kg_m3, 0)} kg/m³`,
   );
   lines.push(`1D-model correction at this arch depth (${fixed(c.arch_depth, 2)}): ${c.correction_percent.slice(0, result.target_hz.length).map((p) => `${signed(p, 2)} %`).join(', ')}`);
+  if (solid)
+    lines.push(
+      `Solid model on the planned shape (arch depth ${fixed(solid.arch_depth, 2)}): ${solid.solid_minus_line_cents.map((g) => `${signed(g, 1)}`).join(', ')} cents against the line model, given to the correction as its prior (${solid.rounds} solid analys${solid.rounds === 1 ? 'is' : 'es'})`,
+    );
   if (c.lot) lines.push(`Started from lot ${c.lot.name}, learnt from ${c.lot.bars.join(', ')}`);
   for (const depth of c.cut_depth_percent) lines.push(`Cut before step ${depth.step} reads as ${fixed(depth.percent, 0)} % of the depth recorded (±${fixed(depth.uncertainty_percent, 0)} %)`);
   for (const check of c.cut_from_plan)
@@ -107,10 +111,11 @@ function formatNextCut(result: NextCutResult, title: string): string {
 export const nextCutCommand: Command = {
   name: 'next-cut',
   summary: 'tune-and-trim: learn the bar from its session log and say where to cut next',
-  usage: 'barwright next-cut SESSION [--lots LOTS] [--out BAR [--force]] [--json]',
+  usage: 'barwright next-cut SESSION [--lots LOTS] [--theory timoshenko|solid] [--out BAR [--force]] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       lots: { type: 'string' },
+      theory: { type: 'string' },
       out: { type: 'string' },
       force: { type: 'boolean' },
       json: { type: 'boolean' },
@@ -119,7 +124,10 @@ export const nextCutCommand: Command = {
     const path = positionals[0]!;
     const log = await readSessionFile(path, io);
     const { prior, note } = priorForSession(log, values.lots === undefined ? undefined : await readLotFile(values.lots, io));
-    const result = nextCut(log, { source: path, lot: prior });
+    const theory = values.theory ?? 'timoshenko';
+    if (theory !== 'timoshenko' && theory !== 'solid') throw new InputError('command line', '--theory', `must be timoshenko or solid (got "${theory}")`);
+    const solidResult = theory === 'solid' ? nextCutSolid(log, { source: path, lot: prior }) : null;
+    const result: NextCutResult = solidResult ?? nextCut(log, { source: path, lot: prior });
     if (note) result.warnings.push(note);
     if (values.out !== undefined) {
       if (result.status !== 'cut') throw new InputError('command line', '--out', `there is no cut to write (status ${result.status})`);
@@ -131,7 +139,7 @@ export const nextCutCommand: Command = {
       return 0;
     }
     const steps = log.steps.length;
-    io.stdout(formatNextCut(result, `${log.label ?? path}: ${steps} step${steps === 1 ? '' : 's'}, ratios ${log.target.ratios.join(':')}`));
+    io.stdout(formatNextCut(result, `${log.label ?? path}: ${steps} step${steps === 1 ? '' : 's'}, ratios ${log.target.ratios.join(':')}`, solidResult?.solid_correction ?? null));
     if (values.out !== undefined) io.stdout(`\nWrote the bar after the cut to ${values.out}.`);
     return 0;
   },
