@@ -14,3 +14,5 @@ export * from './projectKeyboardFile.ts';
 export * from './projectKeyboardPlan.ts';
 export * from './projectKeyboardPlanEdits.ts';
 export * from './storePlanInProject.ts';
+export * from './projectSessionContext.ts';
+export * from './projectTemperatureDrift.ts';

@@ -21,7 +21,7 @@ function targetFor(instrument: Instrument, bar: ProjectBar): ProjectBar['session
   const register = instrument.registers.find((candidate) => candidate.id === bar.register);
   const ratios = register ? [...register.ratios] : [...bar.session.target.ratios];
   const tolerance = register ? [...register.tolerance_cents] : [...bar.session.target.tolerance_cents];
-  return { note: bar.note, a4: instrument.a4_hz, ratios, tolerance_cents: tolerance };
+  return { note: bar.note, a4: instrument.a4_hz, ratios, tolerance_cents: tolerance, playing_temperature_c: instrument.air_temperature_c };
 }
 
 /** Rewrites every bar's session target from the instrument (after A4 or a register changed). */
@@ -168,6 +168,10 @@ export interface RecordStepOptions {
   source?: SessionStep['source'];
   /** What the model predicted for this shape before striking it (Hz). */
   predictedHz?: readonly number[];
+  /** Air temperature at the reading, °C (the reading is projected from it to the playing temperature). */
+  airTemperatureC?: number;
+  /** Caliper readings `[x_mm, thickness_mm]` taken with this round (usually at the advised checkpoints). */
+  measuredThicknessMm?: readonly (readonly [number, number])[];
 }
 
 /** Records a measured round against the bar as it is now; the bar becomes "tuning". */
@@ -177,15 +181,24 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
     if (!Number.isFinite(hz) || hz <= 0) throw new InputError('round', `partial ${index + 1}`, 'must be a frequency greater than 0 Hz');
     if (index > 0 && hz <= measuredHz[index - 1]!) throw new InputError('round', `partial ${index + 1}`, `must be higher than partial ${index} (${measuredHz[index - 1]} Hz)`);
   });
+  if (options.airTemperatureC !== undefined && !(Number.isFinite(options.airTemperatureC) && options.airTemperatureC >= -30 && options.airTemperatureC <= 60))
+    throw new InputError('round', 'air_temperature_c', `${options.airTemperatureC} °C is outside −30 to 60 °C`);
   return replaceBar(project, barId, (bar) => {
     const step: SessionStep = { bar: structuredClone(bar.current), measured_hz: [...measuredHz], recorded_at: options.at };
     if (options.source) step.source = options.source;
     const previous = bar.session.steps[bar.session.steps.length - 1];
-    if (previous && JSON.stringify(previous.bar) !== JSON.stringify(bar.current)) step.cut = { made: bar.expected_hz ? 'as-planned' : 'as-done' };
+    const cutSince = previous !== undefined && JSON.stringify(previous.bar) !== JSON.stringify(bar.current);
+    if (cutSince) step.cut = { made: bar.expected_hz ? 'as-planned' : 'as-done' };
+    // The first round after a cut records when the cut was finished (a re-strike inherits it in the log).
+    if (cutSince && bar.cut_finished_at !== undefined && Date.parse(bar.cut_finished_at) <= Date.parse(options.at) && (!previous?.recorded_at || Date.parse(bar.cut_finished_at) >= Date.parse(previous.recorded_at)))
+      step.cut_finished_at = bar.cut_finished_at;
+    if (options.airTemperatureC !== undefined) step.air_temperature_c = options.airTemperatureC;
+    if (options.measuredThicknessMm && options.measuredThicknessMm.length > 0) step.measured_thickness_mm = options.measuredThicknessMm.map(([x, t]) => [x, t]);
     const predicted = bar.expected_hz ?? options.predictedHz;
     if (predicted && predicted.length > 0 && predicted.every((hz) => Number.isFinite(hz) && hz > 0)) step.predicted_hz = [...predicted];
     const next = touched({ ...bar, session: { ...bar.session, steps: [...bar.session.steps, step] }, state: bar.state === 'done' ? 'done' : 'tuning', advice: null }, options.at);
     delete next.expected_hz;
+    delete next.checkpoints;
     return next;
   });
 }
@@ -209,7 +222,9 @@ export function setAdvice(project: ProjectFile, barId: string, advice: Omit<CutA
 
 /**
  * The maker has made the advised cut: the bar's shape becomes the advice's `bar_after` (checked
- * to remove material only). Marks the bar "done" when the advice said it was done.
+ * to remove material only), the time `at` is kept as when the cut was finished (the bar rests
+ * before it is struck, and the next round records it), and the advice's caliper checkpoints wait
+ * for the readings. Marks the bar "done" when the advice said it was done.
  */
 export function markCutDone(project: ProjectFile, barId: string, at: string): ProjectFile {
   return replaceBar(project, barId, (bar) => {
@@ -217,7 +232,10 @@ export function markCutDone(project: ProjectFile, barId: string, at: string): Pr
     if (bar.advice.status === 'stuck') throw new InputError('round', 'advice', 'the advice is that no cut reaches the target; nothing to mark');
     if (bar.advice.status === 'done') return touched({ ...bar, state: 'done', advice: null }, at);
     assertNoMaterialAdded(bar.current, bar.advice.bar_after, 'advice');
-    return touched({ ...bar, current: structuredClone(bar.advice.bar_after), state: 'tuning', advice: null, expected_hz: [...bar.advice.predicted_hz] }, at);
+    const next: ProjectBar = touched({ ...bar, current: structuredClone(bar.advice.bar_after), state: 'tuning', advice: null, expected_hz: [...bar.advice.predicted_hz], cut_finished_at: at }, at);
+    if (bar.advice.checkpoints && bar.advice.checkpoints.length > 0) next.checkpoints = structuredClone(bar.advice.checkpoints);
+    else delete next.checkpoints;
+    return next;
   });
 }
 

@@ -7,6 +7,7 @@ import { parseBarFile } from '../fileFormats/barFile.ts';
 import { parseSessionFile } from '../fileFormats/sessionFile.ts';
 import { isInputError } from '../fileFormats/InputError.ts';
 import { keyboardPlanRecordSchema } from './projectKeyboardPlan.ts';
+import { parseLotFile } from '../fileFormats/lotFile.ts';
 
 /** A finite number > 0 with a unit in the rule. */
 function positive(unit: string) {
@@ -107,6 +108,20 @@ const registerSchema = z.looseObject({
   resonator_inner_diameter_mm: positive('mm').optional(),
 });
 
+/** Where to check a cut with the caliper: positions (mm from the left end) and thicknesses to expect (mm). */
+const checkpointsSchema = z.array(z.looseObject({ x_mm: z.number({ error: 'must be a number (mm)' }).refine((v) => Number.isFinite(v) && v >= 0, { error: 'must be 0 mm or more' }), thickness_mm: positive('mm') }), { error: 'must be a list of caliper checkpoints' });
+
+/** One finished bar's lot record, checked by the lot file's parser. */
+const lotRecordSchema = z.unknown().transform((value, context) => {
+  try {
+    return parseLotFile({ format: 'barwright.lots', version: 1, lots: { lot: { bars: [value] } } }, 'lot_record').lots['lot']!.bars[0]!;
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    context.addIssue({ code: 'custom', path: fieldToPath(error.field).slice(4), message: error.rule, input: value });
+    return z.NEVER;
+  }
+});
+
 const designSchema = z.looseObject({
   feasible: z.boolean({ error: 'must be true or false' }),
   bar: barFileSchema,
@@ -123,8 +138,21 @@ const adviceSchema = z.looseObject({
   predicted_hz: hzList,
   calibrated_material: barMaterialSchema.optional(),
   reason: z.string().optional(),
+  checkpoints: checkpointsSchema.optional(),
+  lot_record: lotRecordSchema.optional(),
   from_steps: z.number().int({ error: 'must be a whole number' }).min(0, { error: 'must be 0 or more' }),
   advised_at: isoTime,
+});
+
+/** The project's lots, checked by the lot file's parser (the CLI's `*.lots.json`), so they export as a lot file. */
+const lotsSchema = z.unknown().transform((value, context) => {
+  try {
+    return parseLotFile({ format: 'barwright.lots', version: 1, lots: value }, 'lots').lots;
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    context.addIssue({ code: 'custom', path: fieldToPath(error.field).filter((key) => key !== 'lots'), message: error.rule, input: value });
+    return z.NEVER;
+  }
 });
 
 const barSchema = z.looseObject({
@@ -138,6 +166,8 @@ const barSchema = z.looseObject({
   session: sessionFileSchema,
   advice: adviceSchema.nullable(),
   expected_hz: hzList.optional(),
+  cut_finished_at: isoTime.optional(),
+  checkpoints: checkpointsSchema.optional(),
   notes: z.string({ error: 'must be text' }),
   updated_at: isoTime,
 });
@@ -164,6 +194,7 @@ export const projectFileSchema = z
     }),
     bars: z.array(barSchema, { error: 'must be a list of bars' }),
     keyboard_plan: keyboardPlanRecordSchema.optional(),
+    lots: lotsSchema.optional(),
   })
   .superRefine((project, context) => {
     const registerIds = new Set<string>();

@@ -4,6 +4,7 @@
 // the contract's bar-file and session-file shapes so each can be exported to the CLI as is.
 
 import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
+import type { LotBarRecord } from '../fileFormats/lotFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
@@ -13,6 +14,8 @@ export interface SessionTarget {
   a4?: number;
   ratios: number[];
   tolerance_cents: number[];
+  /** The temperature the instrument is tuned for, °C: the instrument's playing temperature. */
+  playing_temperature_c?: number;
 }
 
 /** One measured round: the bar as shaped when it was struck, and the partials heard (Hz). */
@@ -27,6 +30,18 @@ export interface SessionStep {
   source?: 'typed' | 'microphone' | 'file';
   /** The cut made since the previous step: as advised (`as-planned`) or entered by hand (`as-done`). */
   cut?: { made: 'as-planned' | 'as-done'; note?: string };
+  /** Air temperature when the bar was struck, °C. */
+  air_temperature_c?: number;
+  /** When the cut before this round was finished (ISO 8601). */
+  cut_finished_at?: string;
+  /** Caliper readings `[x_mm, thickness_mm]` taken with this round. */
+  measured_thickness_mm?: [number, number][];
+}
+
+/** A place to check a cut with the caliper, and the thickness to expect there (mm). */
+export interface CaliperCheckpoint {
+  x_mm: number;
+  thickness_mm: number;
 }
 
 /** The contract's session file (`*.session.json`). */
@@ -59,6 +74,10 @@ export interface CutAdvice {
   predicted_hz: number[];
   calibrated_material?: BarFileMaterial;
   reason?: string;
+  /** Where to check the cut with a caliper (with a cut). */
+  checkpoints?: CaliperCheckpoint[];
+  /** With a done verdict: what the finished bar teaches its lot (kept in the project's lots when it is marked done). */
+  lot_record?: LotBarRecord;
   /** Number of session steps the advice was computed from (stale when steps change). */
   from_steps: number;
   advised_at: string;
@@ -90,6 +109,10 @@ export interface ProjectBar {
   advice: CutAdvice | null;
   /** What the calibrated model expects this shape to sound (Hz), set when an advised cut is made. */
   expected_hz?: number[];
+  /** When the last cut was finished (ISO 8601), until the next round records it: the bar rests before it is struck. */
+  cut_finished_at?: string;
+  /** The advised cut's caliper checkpoints, until the next round records what was measured there. */
+  checkpoints?: CaliperCheckpoint[];
   notes: string;
   updated_at: string;
 }
@@ -103,7 +126,10 @@ export interface Instrument {
   /** The maker's starting guess for the timber (each bar carries its own copy). */
   material: BarFileMaterial;
   registers: Register[];
-  /** Air temperature of the room the instrument will be played in, °C (for resonators). */
+  /**
+   * The playing temperature: the air temperature of the room the instrument will be played in, °C.
+   * Resonators are sized for it and every bar's readings are projected to it.
+   */
   air_temperature_c: number;
   /** Resonator open end: unflanged (plain tube) or flanged (end correction 0.6133 r or 0.8216 r). */
   resonator_end: 'unflanged' | 'flanged';
@@ -124,6 +150,8 @@ export interface ProjectFile {
   bars: ProjectBar[];
   /** The whole-keyboard plan made in the workbench, with the keyboard file it came from (optional). */
   keyboard_plan?: KeyboardPlanRecord;
+  /** What each lot (board or batch) of wood taught, bar by bar, from its finished bars (optional; by lot name). */
+  lots?: Record<string, { bars: LotBarRecord[] }>;
 }
 
 /** Current version of the project file format. */

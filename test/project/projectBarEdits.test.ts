@@ -58,7 +58,7 @@ describe('adding bars', () => {
     for (const bar of project.bars) {
       expect(bar.state).toBe('not-started');
       expect(bar.session.steps).toEqual([]);
-      expect(bar.session.target).toEqual({ note: bar.note, a4: 442, ratios: [1, 4, 10], tolerance_cents: [2, 5, 15] });
+      expect(bar.session.target).toEqual({ note: bar.note, a4: 442, ratios: [1, 4, 10], tolerance_cents: [2, 5, 15], playing_temperature_c: 20 });
       // Advice keeps a quarter of the blank (the designer's default thinnest point).
       expect(bar.session.limits.min_thickness_mm).toBe(5);
     }

@@ -8,7 +8,7 @@ import {
   barName,
   barTargetHz,
   comparePartials,
-  lastMeasuredHz,
+  lastReadingAtPlayingHz,
   moveBar,
   parseNote,
   registerOf,
@@ -209,7 +209,8 @@ export class BwBarList extends LitElement {
     const project = this.project!;
     const register = registerOf(project, bar);
     const targets = barTargetHz(project, bar);
-    const measured = lastMeasuredHz(bar);
+    // As heard, moved to the playing temperature (as the tuning view shows it).
+    const measured = lastReadingAtPlayingHz(project, bar);
     const prediction = this.predictions.get(bar.id);
     const hz = measured ?? prediction?.analysis?.bending.map((mode) => mode.hz) ?? null;
     if (!hz) return html`<span class="muted">${prediction?.error ?? (this.predicting.running ? 'predicting…' : '–')}</span>`;

@@ -2,13 +2,13 @@
 // change is sent up as a project edit; a rule the library refuses is shown beside its field.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { barMaterialFamily, materialPresets, setBarBlank, type BarFile } from '../../src/index.ts';
+import { barMaterialFamily, materialPresets, setBarBlank, setBarLot, type BarFile } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { sendEdit } from '../events.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
 import './bw-number-field.ts';
 
-type Explicit = { E_GPa: number; G_GPa?: number; poisson?: number; density_kg_m3: number; shear_coefficient?: number; label?: string };
+type Explicit = { E_GPa: number; G_GPa?: number; poisson?: number; density_kg_m3: number; shear_coefficient?: number; label?: string; pitch_cents_per_c?: number };
 
 /** `<bw-blank-form .blank bar-id>` */
 @customElement('bw-blank-form')
@@ -88,12 +88,20 @@ export class BwBlankForm extends LitElement {
     ></bw-number-field>`;
   }
 
+  /** Names the board or batch the bar was cut from (empty: none). */
+  private onLot(event: Event): void {
+    const value = (event.target as HTMLInputElement).value;
+    const outcome = sendEdit(this, (project) => setBarLot(project, this.barId, value, new Date().toISOString()));
+    this.errors = { ...this.errors, lot: outcome.ok ? '' : outcome.error.rule };
+  }
+
   private onPreset(event: Event): void {
     const name = (event.target as HTMLSelectElement).value;
     const preset = materialPresets.find((candidate) => candidate.name === name);
     if (!preset || !this.blank) return;
     const material: Explicit = { E_GPa: preset.E_GPa, density_kg_m3: preset.density_kg_m3, poisson: preset.poisson, label: preset.label };
     if (preset.G_GPa !== undefined) material.G_GPa = preset.G_GPa;
+    material.pitch_cents_per_c = preset.pitch_cents_per_c;
     this.apply({ ...structuredClone(this.blank), material }, 'material');
   }
 
@@ -130,6 +138,11 @@ export class BwBlankForm extends LitElement {
             ${this.errors['material'] ? html`<p class="problem wide" role="alert">${this.errors['material']}</p>` : nothing}
             <p class="note wide">${metal ? 'Handbook values: each alloy and temper differs a little, and tuning rounds learn the real values.' : 'A starting guess: each blank differs, and tuning rounds learn the real values.'}</p>`
           : html`<p class="note wide">Uses the preset “${(blank.material as { preset: string }).preset}”.</p>`}
+        <div class="select-field wide">
+          <label for="lot">Lot (the ${metal ? 'stock' : 'board'} or batch it was cut from)</label>
+          <input id="lot" autocomplete="off" .value=${blank.lot ?? ''} @change=${this.onLot} aria-invalid=${this.errors['lot'] ? 'true' : 'false'} />
+          ${this.errors['lot'] ? html`<span class="field-error" role="alert">✕ ${this.errors['lot']}</span>` : html`<span class="note">Bars of one lot share their ${metal ? 'metal' : 'wood'}: each finished bar teaches the next.</span>`}
+        </div>
       </fieldset>`;
   }
 }

@@ -80,6 +80,8 @@ export class BwCentsReadout extends LitElement {
   @property({ attribute: 'empty-words' }) emptyWords = 'no reading';
   /** Smaller numerals for lists. */
   @property({ type: Boolean, reflect: true }) compact = false;
+  /** The reading as taken, when the figures shown were projected to the playing temperature (e.g. "read 189.13 Hz at 21.5 °C"). */
+  @property({ attribute: 'as-read' }) asRead = '';
 
   protected override render() {
     const kind = verdictClass(this.verdict);
@@ -89,6 +91,7 @@ export class BwCentsReadout extends LitElement {
       <div class="value ${kind}">${formatCents(this.cents)}<span class="unit">cents</span></div>
       <div class="verdict ${kind}">${verdictMark(this.verdict)} ${words}</div>
       <div class="detail">${formatHz(this.hz)} Hz · target ${formatHz(this.targetHz)} Hz${this.tolerance !== null ? html` · ±${this.tolerance}` : ''}</div>
+      ${this.asRead ? html`<div class="detail as-read">${this.asRead}</div>` : ''}
     </div>`;
   }
 }

@@ -14,6 +14,7 @@ import type { ValueCommitDetail } from './bw-number-field.ts';
 import './bw-number-field.ts';
 import './bw-keyboard-plan.ts';
 import './bw-bar-list.ts';
+import './bw-lot-panel.ts';
 
 /** `<bw-keyboard-view .project>` */
 @customElement('bw-keyboard-view')
@@ -73,6 +74,7 @@ export class BwKeyboardView extends LitElement {
   @state() private predictions = new Map<string, AnalyzeManyEntry>();
   @state() private registerErrors: Record<string, string> = {};
   @state() private a4Error = '';
+  @state() private temperatureError = '';
   @state() private rangeError = '';
   /** Predictions for every bar's present shape (new shapes restart it; kept until new ones arrive). */
   private readonly prediction = new TaskController<AnalyzeManyEntry[]>(this, { onResult: (entries) => void (this.predictions = new Map(entries.map((entry) => [entry.id, entry]))) });
@@ -129,6 +131,11 @@ export class BwKeyboardView extends LitElement {
     this.a4Error = outcome.ok ? '' : outcome.error.rule;
   }
 
+  private editPlayingTemperature(value: number): void {
+    const outcome = sendEdit(this, (project) => updateInstrument(project, { air_temperature_c: value }));
+    this.temperatureError = outcome.ok ? '' : outcome.error.rule;
+  }
+
   private editRange(lowest: string, highest: string): void {
     const outcome = sendEdit(this, (project) => setInstrumentRange(project, lowest, highest));
     this.rangeError = outcome.ok ? '' : outcome.error.rule;
@@ -157,6 +164,18 @@ export class BwKeyboardView extends LitElement {
             ${this.rangeError ? html`<span class="field-error" role="alert" data-testid="range-error">✕ ${this.rangeError}</span>` : nothing}
           </div>
           <bw-number-field label="A4 reference" unit="Hz" name="a4" .value=${instrument.a4_hz} .min=${300} .max=${600} step="0.5" error=${this.a4Error} @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.editA4(event.detail.value)}></bw-number-field>
+          <bw-number-field
+            label="Playing temperature"
+            unit="°C"
+            name="playing-temperature"
+            .value=${instrument.air_temperature_c}
+            .min=${-30}
+            .max=${60}
+            step="0.5"
+            hint="Readings are shown at it; tubes are sized for it."
+            error=${this.temperatureError}
+            @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.editPlayingTemperature(event.detail.value)}
+          ></bw-number-field>
           <div class="fact"><span class="muted">${materialFileFamily(material) === 'metal' ? 'Metal' : 'Timber'} (starting guess)</span><strong>${'label' in material && material.label ? material.label : 'preset' in material ? material.preset : 'custom'}</strong></div>
         </div>
         <h3>Registers</h3>
@@ -195,6 +214,7 @@ export class BwKeyboardView extends LitElement {
         .predicting=${{ running: predicting.running, progress, note: this.predictionNote() }}
         @predictions-cancel=${() => this.prediction.cancel('bars')}
       ></bw-bar-list>
+      <bw-lot-panel .project=${project}></bw-lot-panel>
     </div>`;
   }
 }

@@ -13,6 +13,7 @@ import {
   setResonatorBore,
   setResonatorFrame,
   speedOfSound,
+  temperatureDrift,
   updateInstrument,
   type ProjectFile,
   type ProjectTube,
@@ -197,10 +198,10 @@ export class BwResonatorView extends LitElement {
     const frame = resonatorFrameRangeMm;
     return html`<section class="panel screen-only" aria-labelledby="air-heading">
         <h2 id="air-heading">Resonator tubes</h2>
-        <p class="muted">Closed at the bottom, open at the top, each tuned to its bar's fundamental. Tubes sound about 3 cents flat for each °C colder than the temperature set here.</p>
+        <p class="muted">Closed at the bottom, open at the top, each tuned to its bar's fundamental at the playing temperature. Every bar's readings in the tuning view are shown at this temperature too.</p>
         <div class="settings">
           <bw-number-field
-            label="Air temperature where it will be played"
+            label="Playing temperature (air where it will be played)"
             unit="°C"
             name="temperature"
             .value=${instrument.air_temperature_c}
@@ -244,6 +245,7 @@ export class BwResonatorView extends LitElement {
             ></bw-number-field>`,
           )}
         </div>
+        ${this.renderDrift(project)}
       </section>
       <section class="panel" style="margin-top: 1rem" aria-labelledby="tubes-heading">
         <h3 id="tubes-heading">Tube lengths at <span class="big-temperature">${instrument.air_temperature_c} °C</span></h3>
@@ -273,6 +275,25 @@ export class BwResonatorView extends LitElement {
         </div>
         <p class="muted">A tube closed at the bottom sounds only f, 3f, 5f…: its 3f meets the second partial of a bar tuned 1 : 3, while the 4× and 10× partials of a 1 : 4 : 10 bar get no help from it. Target ratios here: ${keyboardRegisters.map((register) => `${register.label} ${formatRatios(register.ratios)}`).join(' · ')}. Speed of sound at ${instrument.air_temperature_c} °C in dry air: ${formatNumber(this.speed(), 1)} m/s.</p>
       </section>`;
+  }
+
+  /** How far bar and tube drift apart per °C away from the playing temperature. */
+  private renderDrift(project: ProjectFile) {
+    const drift = temperatureDrift(project);
+    const signed = (value: number) => `${value >= 0 ? '+' : '−'}${formatNumber(Math.abs(value), 1)}`;
+    return html`<div class="drift" style="margin-top: 1rem" data-testid="temperature-drift">
+      <h3>Bar and tube apart per °C</h3>
+      <p>
+        Away from ${drift.playingC} °C, a tube moves <strong>${signed(drift.tubeCentsPerC)} cents per °C</strong> (warmer air, sharper tube) and the bars
+        <strong>${signed(drift.instrument.barCentsPerC)} cents per °C</strong> (${drift.instrument.from === 'default' ? 'the usual figure for wood, common practice: a bar struck unchanged at two temperatures learns its own' : drift.instrument.source}): they drift apart by
+        <strong data-testid="drift-apart">${formatNumber(Math.abs(drift.instrument.apartCentsPerC), 1)} cents per °C</strong>, so ${formatNumber(Math.abs(5 * drift.instrument.apartCentsPerC), 0)} cents at 5 °C off.
+      </p>
+      ${drift.learnt.length > 0
+        ? html`<ul data-testid="drift-learnt">
+            ${drift.learnt.map((bar) => html`<li>${bar.note}: the bar moves ${signed(bar.barCentsPerC)} cents per °C (learnt from its rounds), ${formatNumber(Math.abs(bar.apartCentsPerC), 1)} cents per °C from its tube.</li>`)}
+          </ul>`
+        : nothing}
+    </div>`;
   }
 
   private speed(): number | null {

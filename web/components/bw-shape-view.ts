@@ -4,7 +4,7 @@
 // undercut planner. Engineering figures sit behind a disclosure.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { adoptDesign, barMaterialFamily, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, stableHash, withStations, type BarFile, type BarState, type CutEffectMap, type DesignResult, type ModeResult, type ProjectBar, type ProjectFile } from '../../src/index.ts';
+import { adoptDesign, barCalibrationInputs, barMaterialFamily, barTargetHz, comparePartials, registerOf, setBarNotes, setBarShape, setBarState, setDesign, stableHash, withStations, type BarFile, type BarState, type CalibrationSummary, type CutEffectMap, type DesignResult, type ModeResult, type ProjectBar, type ProjectFile } from '../../src/index.ts';
 import { TaskController, workerJob, type TaskBinding, type TaskProblem } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
 import type { AnalyzeResult, DesignPayload } from '../worker/solverProtocol.ts';
@@ -151,7 +151,7 @@ export class BwShapeView extends LitElement {
     }
     const shape = this.shape;
     if (shape) {
-      const key = JSON.stringify(shape);
+      const key = this.shapeKey(shape);
       if (key !== this.lastGiven) {
         this.lastGiven = key;
         this.analyse(shape, key, true);
@@ -159,9 +159,24 @@ export class BwShapeView extends LitElement {
     }
   }
 
-  /** Asks for the partials of `shape` on the bar shown (with shapes and the where-to-cut map unless dragging). */
+  /** What the bar's predictions are calibrated with (its rounds and lot), or null before the first round. */
+  private calibrationInputs() {
+    const bar = this.bar;
+    return bar && this.project ? barCalibrationInputs(this.project, bar) : null;
+  }
+
+  /** Fingerprint of a shape's analysis: the shape and, once the bar has rounds, what calibrates it. */
+  private shapeKey(shape: BarFile): string {
+    const inputs = this.calibrationInputs();
+    return `${JSON.stringify(shape)}${inputs ? `:${stableHash(inputs)}` : ''}`;
+  }
+
+  /**
+   * Asks for the partials of `shape` on the bar shown (with shapes and the where-to-cut map unless
+   * dragging): from the bar's calibrated model once it has rounds, as the tuning view predicts.
+   */
   private analyse(shape: BarFile, key: string, full: boolean, givenAt?: number): void {
-    const payload = { bar: shape, modes: this.modeCount(), withShapes: full, withSensitivities: full };
+    const payload = { bar: shape, modes: this.modeCount(), withShapes: full, withSensitivities: full, ...this.calibrationInputs() };
     this.analysis.run({ subject: this.barId, key: `${full ? 'full' : 'partials'}:${key}` }, workerJob(solver, 'analyze', payload), givenAt);
   }
 
@@ -173,7 +188,9 @@ export class BwShapeView extends LitElement {
   /** What a plan for `bar` asks the designer: its present shape, note, targets and thinnest allowed. */
   private designPayload(project: ProjectFile, bar: ProjectBar): DesignPayload {
     const register = registerOf(project, bar);
-    return { bar: bar.current, target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } };
+    const payload: DesignPayload = { bar: bar.current, target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } };
+    const inputs = barCalibrationInputs(project, bar);
+    return inputs ? { ...payload, ...inputs } : payload;
   }
 
   /** Fingerprint of what a plan for bar `barId` would ask now (null when the bar is gone). */
@@ -210,7 +227,7 @@ export class BwShapeView extends LitElement {
   /** While dragging: partials only (mode shapes follow when the drag ends). */
   private onPreview(event: CustomEvent<ProfileChangeDetail>): void {
     this.preview = event.detail.bar;
-    this.lastGiven = JSON.stringify(event.detail.bar);
+    this.lastGiven = this.shapeKey(event.detail.bar);
     this.analyse(event.detail.bar, this.lastGiven, false, event.detail.at);
   }
 
@@ -258,6 +275,7 @@ export class BwShapeView extends LitElement {
     return html`<section class="panel" aria-labelledby="predicted-heading">
       <h3 id="predicted-heading">Predicted partials for this shape</h3>
       <p class="muted">Target ${formatRatios(register.ratios)} on ${bar.note} at A4 = ${project.instrument.a4_hz} Hz. A prediction: cut less than it suggests and measure.</p>
+      ${this.renderModelSource(value?.calibration ?? null)}
       <div class="readouts" data-testid="predicted-partials">
         ${standings.map(
           (standing, index) => html`<bw-cents-readout
@@ -281,6 +299,18 @@ export class BwShapeView extends LitElement {
           ? html`<p class="muted">No twisting or side-to-side vibration lies close to a tuned partial.</p>`
           : nothing}
     </section>`;
+  }
+
+  /** Which material the partials come from: the calibrated model once the bar has rounds, else the starting guess. */
+  private renderModelSource(calibration: CalibrationSummary | null) {
+    const bar = this.bar!;
+    const rounds = bar.session.steps.length;
+    if (rounds === 0) return html`<p class="muted" data-testid="model-source">From the starting-guess material: no rounds yet. Once the bar has been struck, its rounds calibrate these figures.</p>`;
+    if (!calibration) return html`<p class="muted" data-testid="model-source">Calibrating from this bar's ${rounds} round${rounds === 1 ? '' : 's'}…</p>`;
+    return html`<p data-testid="model-source">
+      <strong>Calibrated from this bar's ${calibration.steps} round${calibration.steps === 1 ? '' : 's'}</strong>, as the tuning view predicts: ${barMaterialFamily(bar.current) === 'metal' ? 'stiffness' : 'stiffness along the grain'} ${formatNumber(calibration.E_GPa, 2)} GPa, shear stiffness ${formatNumber(calibration.G_GPa, 3)} GPa,
+      density ${formatNumber(calibration.density_kg_m3, 0)} kg/m³${calibration.lot ? `, starting from lot ${calibration.lot}` : ''}; at the playing temperature, ${calibration.playing_temperature_c} °C.
+    </p>`;
   }
 
   private problemText(problem: TaskProblem): string {

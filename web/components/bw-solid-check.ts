@@ -3,7 +3,7 @@
 // bar and the chosen mode's shape along it. Solved in a worker of its own (progress, cancel).
 import { LitElement, html, css, nothing, svg } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { stableHash, type BarAnalysis, type BarFile, type ModeResult } from '../../src/index.ts';
+import { barMaterialFamily, stableHash, type BarAnalysis, type BarFile, type ModeResult } from '../../src/index.ts';
 import { TaskController, workerJob } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
@@ -124,8 +124,9 @@ export class BwSolidCheck extends LitElement {
         ${state.problem && state.problem.status !== 'stale' && !state.running ? html`<span class="problem" role="alert">${state.problem.status === 'cancelled' ? 'Stopped.' : state.problem.status === 'unavailable' ? `Not available here: ${state.problem.what}` : state.problem.message}</span>` : nothing}
       </div>
       <p class="muted">
-        The line model treats the bar as a line; the 3D model solves the block of wood with its grain (about a second). The difference matters most on deep arches and for torsion and
-        side-to-side modes.
+        The line model treats the bar as a line; the 3D model solves
+        ${barMaterialFamily(bar) === 'metal' ? 'the bar as the solid block of metal it is' : 'the block of wood with its grain'} (about a second). The difference matters most on deep
+        arches and for torsion and side-to-side modes.
       </p>
       ${analysis
         ? html`<p class="muted" data-testid="solid-status">

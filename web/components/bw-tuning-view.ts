@@ -6,18 +6,21 @@ import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import {
   barMaterialFamily,
+  barLot,
+  barLotPrior,
+  barSession,
   barTargetHz,
   comparePartials,
   cutInstructions,
   labelPartials,
-  lastMeasuredHz,
   markCutDone,
+  recordLotLearning,
   recordStep,
   registerOf,
-  removeLastStep,
   setAdvice,
   setMinimumThickness,
   stableHash,
+  warmBarMinutes,
   type CutInstructions,
   type NextCutResult,
   type ProjectBar,
@@ -25,19 +28,23 @@ import {
 } from '../../src/index.ts';
 import { TaskController, workerJob, type TaskProblem } from '../controllers/TaskController.ts';
 import { solver } from '../worker/SolverClient.ts';
-import type { AnalyzeResult } from '../worker/solverProtocol.ts';
+import type { AnalyzeResult, NextCutAdvice } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
-import { formatCents, formatHz, formatMm, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
+import { formatHz, formatMm, formatNumber, formatRatios, partialName } from '../format.ts';
 import type { RoundSubmitDetail } from './bw-partial-entry.ts';
-import type { RoundErrors } from './bw-round-chart.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
+import type { RoundConditions } from './bw-round-conditions.ts';
 import './bw-bar-picker.ts';
 import './bw-partial-entry.ts';
 import './bw-cents-readout.ts';
 import './bw-profile-drawing.ts';
 import './bw-station-table.ts';
-import './bw-round-chart.ts';
+import './bw-round-history.ts';
+import './bw-last-round.ts';
+import './bw-caliper-checkpoints.ts';
+import './bw-caliper-verdict.ts';
+import './bw-round-conditions.ts';
 import './bw-cautions.ts';
 import './bw-number-field.ts';
 
@@ -115,9 +122,6 @@ export class BwTuningView extends LitElement {
       .listen-slot {
         margin-bottom: 0.8rem;
       }
-      table.rounds {
-        width: 100%;
-      }
       progress {
         width: 10rem;
       }
@@ -132,6 +136,8 @@ export class BwTuningView extends LitElement {
   @state() private roundError = '';
   @state() private listenReady = false;
   @state() private actionError = '';
+  /** The air temperature and caliper readings to go with the next round. */
+  @state() private conditions: RoundConditions = { airC: null, readings: [] };
 
   /** Prediction for the present shape from the starting-guess material (before calibration), per bar. */
   private readonly prediction = new TaskController<AnalyzeResult>(this, { policy: 'latest' });
@@ -139,10 +145,10 @@ export class BwTuningView extends LitElement {
    * Next-cut advice, per bar: stored on the bar whose session it was worked out from, and dropped
    * if that session changed meanwhile (a round recorded or removed).
    */
-  private readonly advice = new TaskController<NextCutResult>(this, {
+  private readonly advice = new TaskController<NextCutAdvice>(this, {
     isCurrent: (binding) => {
       const bar = this.project?.bars.find((candidate) => candidate.id === binding.subject);
-      return bar !== undefined && stableHash(bar.session) === binding.key;
+      return bar !== undefined && this.project !== null && stableHash(this.advicePayload(this.project, bar)) === binding.key;
     },
     onResult: (result, binding) => {
       const sent = sendEdit(this, (project) => setAdvice(project, binding.subject, result, new Date().toISOString()));
@@ -176,10 +182,12 @@ export class BwTuningView extends LitElement {
       this.lastShape = '';
     }
     if (!bar || !this.project) return;
-    const key = JSON.stringify(bar.current);
+    // What the present shape should sound: from the calibrated model once the bar has rounds (one truth with the shape view).
+    const measuredBar = bar.session.steps.length > 0;
+    const key = `${JSON.stringify(bar.current)}:${measuredBar ? stableHash(this.advicePayload(this.project, bar)) : ''}`;
     if (key !== this.lastShape) {
       this.lastShape = key;
-      const payload = { bar: bar.current, modes: Math.max(3, registerOf(this.project, bar).ratios.length), withShapes: false, withSensitivities: false };
+      const payload = { bar: bar.current, modes: Math.max(3, registerOf(this.project, bar).ratios.length), withShapes: false, withSensitivities: false, ...(measuredBar ? this.advicePayload(this.project, bar) : {}) };
       this.prediction.run({ subject: bar.id, key }, workerJob(solver, 'analyze', payload));
     }
     const steps = bar.session.steps.length;
@@ -191,15 +199,45 @@ export class BwTuningView extends LitElement {
     }
   }
 
+  /** The air temperature of the bar's last round, if recorded, °C. */
+  private lastAirC(bar: ProjectBar): number | null {
+    for (let index = bar.session.steps.length - 1; index >= 0; index--) {
+      const air = bar.session.steps[index]!.air_temperature_c;
+      if (air !== undefined) return air;
+    }
+    return null;
+  }
+
+  /**
+   * When the cut the bar may still be warm from was finished, for the rest timer: the last cut's
+   * time until the bar is struck, and after a round struck while it was warm (until the re-strike);
+   * empty otherwise.
+   */
+  private restingSince(bar: ProjectBar): string {
+    const finished = bar.cut_finished_at;
+    if (!finished) return '';
+    if (this.cutSinceLastRound(bar)) return finished;
+    const last = bar.session.steps[bar.session.steps.length - 1];
+    const warm = last?.cut_finished_at === finished && Date.parse(last.recorded_at ?? '') - Date.parse(finished) < warmBarMinutes * 60_000;
+    return warm ? finished : '';
+  }
+
   /** True when the bar's shape differs from the one last struck (a cut was made since). */
   private cutSinceLastRound(bar: ProjectBar): boolean {
     const last = bar.session.steps[bar.session.steps.length - 1];
     return last !== undefined && JSON.stringify(last.bar) !== JSON.stringify(bar.current);
   }
 
+  /** The session as the advice uses it (at the playing temperature) and what the bar's lot taught. */
+  private advicePayload(project: ProjectFile, bar: ProjectBar) {
+    return { session: barSession(project, bar), lot: barLotPrior(project, bar) };
+  }
+
   /** Works out the next cut from `bar`'s session (stored on that bar when done). */
   private requestAdvice(bar: ProjectBar): void {
-    this.advice.run({ subject: bar.id, key: stableHash(bar.session) }, workerJob(solver, 'nextCut', { session: bar.session }));
+    const payload = this.advicePayload(this.project!, bar);
+    // A done verdict comes with what the bar teaches its lot (kept when it is marked done).
+    this.advice.run({ subject: bar.id, key: stableHash(payload) }, workerJob(solver, 'nextCut', { ...payload, learn: { bar: bar.id, note: bar.note } }));
   }
 
   /** The prediction for the bar on screen. */
@@ -239,18 +277,29 @@ export class BwTuningView extends LitElement {
     const predicted = this.predicted?.analysis.bending.map((mode) => mode.hz).slice(0, event.detail.hz.length);
     const options: Parameters<typeof recordStep>[3] = { at: new Date().toISOString(), source: event.detail.source };
     if (predicted) options.predictedHz = predicted;
+    if (this.conditions.airC !== null) options.airTemperatureC = this.conditions.airC;
+    if (this.conditions.readings.length > 0) options.measuredThicknessMm = this.conditions.readings;
     const outcome = sendEdit(this, (project) => recordStep(project, bar.id, event.detail.hz, options));
     this.roundError = outcome.ok ? '' : outcome.error.message;
-    if (outcome.ok) this.heard = null;
+    if (outcome.ok) {
+      this.heard = null;
+      this.renderRoot.querySelector('bw-round-conditions')?.clearReadings();
+    }
   }
 
+  /**
+   * The advised cut is made (or the bar is done). A finished bar cut from a named lot teaches it:
+   * what its rounds learnt (carried by the done advice) becomes the next bar's starting point.
+   */
   private markDone(): void {
-    const outcome = sendEdit(this, (project) => markCutDone(project, this.barId, new Date().toISOString()));
-    this.actionError = outcome.ok ? '' : outcome.error.message;
-  }
-
-  private undoRound(): void {
-    const outcome = sendEdit(this, (project) => removeLastStep(project, this.barId, new Date().toISOString()));
+    const at = new Date().toISOString();
+    const bar = this.bar;
+    const lot = bar ? barLot(bar) : undefined;
+    const record = bar?.advice?.status === 'done' ? bar.advice.lot_record : undefined;
+    const outcome = sendEdit(this, (project) => {
+      const marked = markCutDone(project, this.barId, at);
+      return lot && record ? recordLotLearning(marked, lot, { ...record, learnt_at: at }) : marked;
+    });
     this.actionError = outcome.ok ? '' : outcome.error.message;
   }
 
@@ -260,24 +309,7 @@ export class BwTuningView extends LitElement {
   }
 
   private renderLastRound() {
-    const project = this.project!;
-    const bar = this.bar!;
-    const register = registerOf(project, bar);
-    const targets = barTargetHz(project, bar);
-    const measured = lastMeasuredHz(bar);
-    const last = bar.session.steps[bar.session.steps.length - 1];
-    if (!measured) {
-      return html`<section class="panel"><h3>Last round</h3><p class="muted">No round yet. Strike the bar as it is now (uncut blanks too: the first round teaches barwright this piece of wood).</p></section>`;
-    }
-    const standings = comparePartials(measured, targets, register.tolerance_cents);
-    return html`<section class="panel" aria-labelledby="last-heading">
-      <h3 id="last-heading">Last round · ${formatWhen(last?.recorded_at)}${last?.source ? html` <span class="muted">(${last.source})</span>` : nothing}</h3>
-      <div class="readouts" data-testid="last-round">
-        ${standings.map(
-          (standing, index) => html`<bw-cents-readout label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz} .tolerance=${standing.toleranceCents}></bw-cents-readout>`,
-        )}
-      </div>
-    </section>`;
+    return html`<bw-last-round .project=${this.project} .bar=${this.bar}></bw-last-round>`;
   }
 
   private renderAdvice() {
@@ -318,20 +350,26 @@ export class BwTuningView extends LitElement {
       </section>`;
     }
     const plan: CutInstructions = (advice as { cut?: CutInstructions | null }).cut ?? cutInstructions(bar.current, advice.bar_after);
-    const extras = advice as { cautions?: string[]; warnings?: string[] };
+    const extras = advice as { cautions?: string[]; warnings?: string[]; wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
+    // Where the temperature coefficient comes from is a note on the readings, not a check before cutting.
+    const checks = (extras.warnings ?? []).filter((warning) => !warning.startsWith('temperature:'));
     const predicted = comparePartials(advice.predicted_hz, targets, register.tolerance_cents);
     const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
     return html`<section class="panel" aria-labelledby="advice-heading">
       <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
+      <bw-caliper-verdict .checked=${extras.calibration?.cut_from_plan.find((entry) => entry.step === bar.session.steps.length) ?? null}></bw-caliper-verdict>
       ${advice.status === 'done'
-        ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p><button class="primary" @click=${this.markDone}>Mark the bar done</button>`
+        ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p>
+            ${extras.wait_minutes && extras.wait_minutes > 0 ? html`<p class="problem" role="status" data-testid="still-warm">The last round was struck while the bar was still warm from the cut (it reads flat): strike it again in ${extras.wait_minutes} min before marking it done.</p>` : nothing}
+            <button class="primary" @click=${this.markDone}>Mark the bar done</button>`
         : advice.status === 'stuck'
           ? html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
           : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
-              ${extras.warnings && extras.warnings.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${extras.warnings.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
+              ${checks.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${checks.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
               <bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>
               <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
               <bw-station-table .plan=${plan}></bw-station-table>
+              <bw-caliper-checkpoints .points=${advice.checkpoints ?? []}></bw-caliper-checkpoints>
               <h4>Expected after this cut</h4>
               <div class="after">
                 ${predicted.map((standing, index) => html`<bw-cents-readout compact label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz}></bw-cents-readout>`)}
@@ -344,6 +382,8 @@ export class BwTuningView extends LitElement {
         ? html`<details>
             <summary>What the rounds taught about this blank</summary>
             <p>Calibrated from ${bar.session.steps.length} round${bar.session.steps.length === 1 ? '' : 's'}: stiffness along the grain ${formatNumber(calibrated.E_GPa, 2)} GPa${calibrated.G_GPa !== undefined ? `, shear stiffness ${formatNumber(calibrated.G_GPa, 3)} GPa` : ''}, density ${formatNumber(calibrated.density_kg_m3, 0)} kg/m³.</p>
+            ${extras.temperature ? html`<p>Pitch moves ${formatNumber(extras.temperature.pitch_cents_per_c, 2)} cents per °C (${extras.temperature.pitch_from === 'learnt' ? 'learnt from this bar' : extras.temperature.pitch_source}).</p>` : nothing}
+            ${extras.calibration?.lot ? html`<p data-testid="advice-lot">Started from lot ${extras.calibration.lot.name}, learnt from ${extras.calibration.lot.bars.map((id) => project.bars.find((b) => b.id === id)?.note ?? id).join(', ')}.</p>` : nothing}
           </details>`
         : nothing}
     </section>`;
@@ -370,33 +410,8 @@ export class BwTuningView extends LitElement {
   }
 
   private renderHistory() {
-    const project = this.project!;
-    const bar = this.bar!;
-    const register = registerOf(project, bar);
-    const targets = barTargetHz(project, bar);
-    const rounds: RoundErrors[] = bar.session.steps.map((step) => ({
-      measured: comparePartials(step.measured_hz, targets, register.tolerance_cents).map((standing) => (standing.hz === null ? null : standing.cents)),
-      predicted: comparePartials(step.predicted_hz ?? [], targets, register.tolerance_cents).map((standing) => (standing.hz === null ? null : standing.cents)),
-    }));
     return html`<section class="panel wide" aria-labelledby="history-heading">
-      <h3 id="history-heading">Rounds so far</h3>
-      ${rounds.length === 0
-        ? html`<p class="muted">No rounds yet.</p>`
-        : html`<bw-round-chart .rounds=${rounds}></bw-round-chart>
-            <table class="rounds" data-testid="rounds">
-              <caption class="visually-hidden">Each round's partials</caption>
-              <thead><tr><th scope="col">Round</th><th scope="col">When</th>${targets.map((_, index) => html`<th scope="col" class="number">${partialName(index)} (Hz · cents)</th>`)}</tr></thead>
-              <tbody>
-                ${bar.session.steps.map(
-                  (step, index) => html`<tr>
-                    <td>${index + 1}</td>
-                    <td>${formatWhen(step.recorded_at)}</td>
-                    ${targets.map((_, partial) => html`<td class="number">${formatHz(step.measured_hz[partial])} · ${formatCents(rounds[index]!.measured[partial])}</td>`)}
-                  </tr>`,
-                )}
-              </tbody>
-            </table>
-            <p class="row" style="margin-top: 0.6rem"><button @click=${this.undoRound}>Remove the last round (mistyped)</button></p>`}
+      <bw-round-history .project=${this.project} .bar=${this.bar}></bw-round-history>
       ${this.actionError ? html`<p class="problem" role="alert">${this.actionError}</p>` : nothing}
     </section>`;
   }
@@ -409,7 +424,7 @@ export class BwTuningView extends LitElement {
     const targets = barTargetHz(project, bar);
     return html`<div class="top">
         <bw-bar-picker .bars=${project.bars} bar-id=${bar.id}></bw-bar-picker>
-        <p class="target">Target <strong>${bar.note}</strong> · ${targets.map((hz, index) => html`${index > 0 ? ' · ' : ''}${formatHz(hz)} Hz`)} · ratios ${formatRatios(register.ratios)} · tolerance ±${register.tolerance_cents.join(' / ')} cents</p>
+        <p class="target">Target <strong>${bar.note}</strong> · ${targets.map((hz, index) => html`${index > 0 ? ' · ' : ''}${formatHz(hz)} Hz`)} · ratios ${formatRatios(register.ratios)} · tolerance ±${register.tolerance_cents.join(' / ')} cents · at <strong>${project.instrument.air_temperature_c} °C</strong> (playing)${barLot(bar) ? ` · lot ${barLot(bar)}` : ''}</p>
       </div>
       <div class="layout">
         <div class="stack">
@@ -422,6 +437,14 @@ export class BwTuningView extends LitElement {
                 : html`<p class="unavailable">Listening (microphone or recording) is not available yet: type the partials below.</p>`}
             </div>
             <bw-partial-entry .count=${register.ratios.length} .targets=${targets} .filled=${this.heard} .filledFrom=${this.heardFrom} @round-submit=${this.onRound}></bw-partial-entry>
+            <bw-round-conditions
+              .checkpoints=${this.cutSinceLastRound(bar) ? (bar.checkpoints ?? null) : null}
+              finished-at=${this.restingSince(bar)}
+              .airC=${this.lastAirC(bar)}
+              playing-c=${project.instrument.air_temperature_c}
+              blank-mm=${bar.blank.section.shape === 'rect' ? bar.blank.section.thickness_mm : 0}
+              @conditions-change=${(event: CustomEvent<RoundConditions>) => (this.conditions = event.detail)}
+            ></bw-round-conditions>
             ${this.roundError ? html`<p class="problem" role="alert">${this.roundError}</p>` : nothing}
           </section>
         </div>

@@ -4,7 +4,45 @@
 // between bars.
 import type { JobHandlers } from './serveJobs.ts';
 import type { SolverJobs } from './solverProtocol.ts';
-import { analyzeBar, chimeCutListCsv, closedTubeResonator, designBar, nextCut, parseChimeSetFile, planChimeSet, whereToCutMap, type CutEffectMap } from '../../src/index.ts';
+import {
+  analyzeBar,
+  calibrateSession,
+  calibratedAnalysis,
+  calibratedDesign,
+  calibratedMaterial,
+  calibrationSummary,
+  chimeCutListCsv,
+  closedTubeResonator,
+  correctedBar,
+  designBar,
+  lotRecordFromCalibration,
+  nextCut,
+  parseChimeSetFile,
+  parseSessionFile,
+  planChimeSet,
+  stableHash,
+  whereToCutMap,
+  type CalibrationSummary,
+  type CutEffectMap,
+  type LotPrior,
+  type SessionFile,
+} from '../../src/index.ts';
+
+/** Calibrations of the sessions analysed lately, by fingerprint: a drag re-uses its bar's calibration. */
+const calibrations = new Map<string, CalibrationSummary>();
+const keptCalibrations = 8;
+
+/** The calibration summary of a session (calibrated once, then remembered). */
+function summaryOf(session: SessionFile, lot: LotPrior | null | undefined): CalibrationSummary {
+  const key = stableHash([session, lot ?? null]);
+  const known = calibrations.get(key);
+  if (known) return known;
+  const log = parseSessionFile(session, 'session');
+  const summary = calibrationSummary(calibrateSession(log, { lot: lot ?? null }), log);
+  calibrations.set(key, summary);
+  if (calibrations.size > keptCalibrations) calibrations.delete(calibrations.keys().next().value!);
+  return summary;
+}
 
 /** Progress of next-cut advice in percent: calibration is the first 40 %, planning the rest. */
 function nextCutPercent(stage: string, fraction: number): number {
@@ -15,10 +53,15 @@ function nextCutPercent(stage: string, fraction: number): number {
 export const solverHandlers: JobHandlers<SolverJobs> = {
   /** One bar's modes (and where-to-cut map when asked and available). */
   analyze(payload) {
-    const analysis = analyzeBar(payload.bar, { modes: payload.modes, shapes: payload.withShapes });
+    const calibration = payload.session && payload.session.steps.length > 0 ? summaryOf(payload.session, payload.lot) : null;
+    const options = { modes: payload.modes, shapes: payload.withShapes };
+    const analysis = calibration ? calibratedAnalysis(payload.bar, calibration, options) : analyzeBar(payload.bar, options);
     let sensitivities: CutEffectMap | null = null;
-    if (payload.withSensitivities && payload.bar.section.shape === 'rect') sensitivities = whereToCutMap(payload.bar, { partials: Math.min(3, payload.modes) });
-    return { analysis, sensitivities };
+    if (payload.withSensitivities && payload.bar.section.shape === 'rect') {
+      const bar = calibration ? { ...correctedBar(payload.bar, calibration), material: calibratedMaterial(payload.bar.material, calibration) } : payload.bar;
+      sensitivities = whereToCutMap(bar, { partials: Math.min(3, payload.modes) });
+    }
+    return { analysis, sensitivities, calibration };
   },
 
   /** One bar on the solid model (about a second; its own worker, so a cancel stops only it). */
@@ -46,12 +89,19 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
 
   /** An undercut plan; progress counts solver calls. */
   design(payload, job) {
-    return designBar(payload.bar, { target: payload.target, limits: payload.limits }, { signal: job.signal, onProgress: (step) => job.progress(step.solves, step.maxSolves) }, 'plan');
+    const request = { target: payload.target, limits: payload.limits };
+    const run = { signal: job.signal, onProgress: (step: { solves: number; maxSolves: number }) => job.progress(step.solves, step.maxSolves) };
+    // A bar that has been struck is planned with its calibrated model (one truth with the tuning view).
+    if (payload.session && payload.session.steps.length > 0) return calibratedDesign(payload.bar, request, summaryOf(payload.session, payload.lot), run, 'plan');
+    return designBar(payload.bar, request, run, 'plan');
   },
 
-  /** The next cut of a session; progress in percent. */
+  /** The next cut of a session; progress in percent. When done (and `learn` given), with what the bar teaches its lot. */
   nextCut(payload, job) {
-    return nextCut(payload.session, { source: 'session', onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
+    const result = nextCut(payload.session, { source: 'session', lot: payload.lot ?? null, onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
+    if (result.status !== 'done' || !payload.learn) return result;
+    const log = parseSessionFile(payload.session, 'session');
+    return { ...result, lot_record: lotRecordFromCalibration(calibrateSession(log, { lot: payload.lot ?? null }), payload.learn.bar, new Date().toISOString(), payload.learn.note) };
   },
 
   /** Resonator tubes for a set of fundamentals. */

@@ -1,6 +1,6 @@
 // The solver worker's jobs (solverWorker.ts), in the workbench's one job protocol
 // (jobProtocol.ts): for each kind, the payload the page sends and the result it gets back.
-import type { BarAnalysis, BarFile, ChimeSetPlan, CutEffectMap, DesignResult, NextCutResult, ResonatorResult, SessionFile } from '../../src/index.ts';
+import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile } from '../../src/index.ts';
 
 /** Analyse one bar: its modes, optionally shapes and the where-to-cut map. */
 export interface AnalyzePayload {
@@ -10,6 +10,10 @@ export interface AnalyzePayload {
   withShapes: boolean;
   /** Also return the where-to-cut map (cents per 0.1 mm removed over a 10 mm strip). */
   withSensitivities: boolean;
+  /** The bar's session, once it has measurements: the partials then come from its calibrated model (one truth with the advice). */
+  session?: SessionFile;
+  /** What the bar's lot taught (the calibration's prior), with `session`. */
+  lot?: LotPrior | null;
 }
 
 /** Analyse many bars (the keyboard overview), with progress; cancellable between bars. */
@@ -29,12 +33,23 @@ export interface DesignPayload {
   bar: BarFile;
   target: { note: string; a4: number; ratios: number[]; tolerance_cents: number[] };
   limits: { min_thickness_mm: number };
+  /** The bar's session, once it has measurements: the plan is then made with its calibrated model. */
+  session?: SessionFile;
+  /** What the bar's lot taught (the calibration's prior), with `session`. */
+  lot?: LotPrior | null;
 }
 
 /** The next cut of a tuning session. */
 export interface NextCutPayload {
   session: SessionFile;
+  /** What the bar's lot taught (the calibration's prior). */
+  lot?: LotPrior | null;
+  /** The bar (the project's id) and its note: a `done` result then carries what the bar teaches its lot. */
+  learn?: { bar: string; note: string };
 }
+
+/** Next-cut advice; when done, with what the finished bar teaches its lot (`learn` given). */
+export type NextCutAdvice = NextCutResult & { lot_record?: LotBarRecord };
 
 /** Resonator tube lengths for a set of fundamentals at a temperature. */
 export interface ResonatorPayload {
@@ -53,6 +68,8 @@ export interface ChimeSetPayload {
 export interface AnalyzeResult {
   analysis: BarAnalysis;
   sensitivities: CutEffectMap | null;
+  /** The calibration the partials come from, when a session was given (null: the starting guess). */
+  calibration: CalibrationSummary | null;
 }
 
 /** One bar's line of a many-bar analysis. */
@@ -68,7 +85,7 @@ export type SolverJobs = {
   analyzeMany: { payload: AnalyzeManyPayload; result: AnalyzeManyEntry[] };
   solidModes: { payload: SolidModesPayload; result: BarAnalysis };
   design: { payload: DesignPayload; result: DesignResult };
-  nextCut: { payload: NextCutPayload; result: NextCutResult };
+  nextCut: { payload: NextCutPayload; result: NextCutAdvice };
   resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };
   chimeSet: { payload: ChimeSetPayload; result: { plan: ChimeSetPlan; csv: string } };
 };
