@@ -4,11 +4,14 @@ import { solveBending } from '../modes/solveBending.ts';
 import type { BarFile, BarFileMaterial, BarFileSection } from '../fileFormats/barFile.ts';
 import { InputError } from '../fileFormats/InputError.ts';
 import { uniformProfile } from '../section/ThicknessProfile.ts';
-import { resolveCutLimits, type CutLimits, type CutLimitsInput } from './cutLimits.ts';
+import type { CutLimits, CutLimitsInput } from './cutLimits.ts';
+import { defaultWorkshop, type Workshop } from '../fileFormats/workshopFile.ts';
+import { estimatedCordHoles, uncutForHoles } from './cordHolePlan.ts';
+import { resolveDesignLimits, workshopRules } from './workshopLimits.ts';
 import { createDesignProblem } from './designProblem.ts';
 import { designShape, type ShapeOutcome } from './designShape.ts';
 import { resolveDesignTarget, type DesignTarget, type DesignTargetInput } from './designTarget.ts';
-import { bindingLimits, shortfallReason } from './explainDesign.ts';
+import { bindingLimits, closestShapeReason } from './explainDesign.ts';
 import type { SolveBudget } from './fitShape.ts';
 import type { DesignRunOptions } from './designBar.ts';
 import type { ShapeStart } from './searchShapes.ts';
@@ -35,8 +38,10 @@ export interface ComfortMargins {
 /** What to advise on. */
 export interface BlankAdviceRequest {
   readonly target: DesignTargetInput;
-  /** Workshop limits (mm); defaults scale with each candidate length. */
+  /** Limits given explicitly (mm), each overriding the workshop's; the rest scale with each candidate length. */
   readonly limits?: CutLimitsInput;
+  /** The workshop whose tools set the limits and whose cord holes set the uncut ends (default: barwright's default workshop). */
+  readonly workshop?: Workshop;
   readonly theory?: BeamTheory;
   readonly comfort?: ComfortMargins;
   /** Most solver calls (default 1500). */
@@ -74,15 +79,22 @@ const scanFractions = Array.from({ length: 12 }, (_, i) => 0.96 * 0.92 ** i);
  * and longest lengths at 10 mm as at 6 mm for C4 and A2 1:4:10 and C6 1:3, in 55–65 % of the time.
  */
 const adviceStationSpacing = 0.01;
-/** Bisection steps refining each end of the range (each halves the bracket: ~8 % → ~1 %). */
-const refineSteps = 3;
+/**
+ * Where the scan starts (0.582 of the uncut length): every bar of the demo keyboards, 1:4:10,
+ * 1:4, 1:3 and the fundamental alone, is comfortable there or next to it (measured).
+ */
+const firstScanIndex = 6;
+/** Bisection steps refining each end of the range (each halves the bracket: ~8 % → ~2 %). */
+const refineSteps = 2;
 
 /**
  * The blank length range for which the targets are reachable with a comfortable arch: the design
  * is run (multi-start on the parametric arch families, warm-started from the neighbouring length)
- * with every limit tightened by the comfort margins, over lengths from just under the length at
- * which the uncut blank sounds the fundamental (found by solving the uniform bar, f ∝ 1/L²
- * iteration) down to 40 % of it; the ends of the feasible run are refined by bisection.
+ * with every limit tightened by the comfort margins (the workshop's limits, the uncut ends past
+ * its cord holes), on a ladder of lengths from just under the length at which the uncut blank
+ * sounds the fundamental (found by solving the uniform bar, f ∝ 1/L² iteration) down to 40 % of
+ * it, walked out from the middle of the usual range until each end of the comfortable run is
+ * found; the ends are refined by bisection.
  * Pure and synchronous; cancellable like designBar. Throws InputError for bad input.
  */
 export function adviseBlankLength(blank: BlankSpec, request: BlankAdviceRequest, run: DesignRunOptions = {}, source = 'blank'): BlankAdvice {
@@ -111,8 +123,12 @@ export function adviseBlankLength(blank: BlankSpec, request: BlankAdviceRequest,
     return { ...model, profile: uniformProfile(length, thickness) };
   };
   const uncutLength = lengthSoundingUncut(modelAt, target, theory, budget);
+  const rules = workshopRules(request.workshop ?? defaultWorkshop);
+  // The limits the designer will use at each length: the workshop's, with the uncut ends reaching
+  // past the cord holes at the designer's first estimate of the nodes.
   const limitsAt = (length: number): CutLimits => {
-    const limits = resolveCutLimits(request.limits, { length, thickness }, source);
+    const holes = rules.cordHoleDiameter > 0 ? uncutForHoles(estimatedCordHoles(length, rules.cordHoleDiameter, rules.cordHoleClearance), length) : undefined;
+    const { limits } = resolveDesignLimits(rules, request.limits, { length, thickness }, holes, source);
     return { ...limits, minThickness: Math.min(thickness * 0.95, limits.minThickness + margin), maxSlope: limits.maxSlope * slopeFactor, minToolRadius: limits.minToolRadius * radiusFactor, allowShortening: false, maxShortening: 0 };
   };
   const samples: (BlankSample & { outcome: ShapeOutcome; limits: CutLimits; length: number })[] = [];
@@ -137,18 +153,41 @@ export function adviseBlankLength(blank: BlankSpec, request: BlankAdviceRequest,
   };
   const warmFrom = (sample: (typeof samples)[number] | undefined): ShapeStart[] =>
     sample ? sample.outcome.fits.slice(0, 2).map((fit) => ({ family: fit.evaluation.family, q: fit.evaluation.q })) : [];
-  let previous: (typeof samples)[number] | undefined;
-  let seenFeasible = false;
-  let failuresAfter = 0;
-  for (const fraction of scanFractions) {
-    if (budget.cancelled() || budget.solves >= maxSolves) break;
-    const sample = tryLength(uncutLength * fraction, warmFrom(previous));
-    previous = sample;
-    if (sample.comfortable) {
-      seenFeasible = true;
-      failuresAfter = 0;
-    } else if (seenFeasible && ++failuresAfter >= 2) break;
+  // The scan starts where tuned bars of every usual ratio are comfortable (firstScanIndex) and
+  // walks out both ways, longer first, each way stopping at its first uncomfortable length; when
+  // the first length is not comfortable, it walks out both ways, nearest first, to the first that is.
+  const tried = new Map<number, (typeof samples)[number]>();
+  const sampleAt = (index: number, warm: (typeof samples)[number] | undefined): (typeof samples)[number] | undefined => {
+    if (index < 0 || index >= scanFractions.length || budget.cancelled() || budget.solves >= maxSolves) return undefined;
+    const known = tried.get(index);
+    if (known) return known;
+    const sample = tryLength(uncutLength * scanFractions[index]!, warmFrom(warm));
+    tried.set(index, sample);
+    return sample;
+  };
+  let seed = firstScanIndex;
+  let first = sampleAt(seed, undefined);
+  for (let step = 1; first && !first.comfortable && step < scanFractions.length; step++) {
+    for (const index of [firstScanIndex - step, firstScanIndex + step]) {
+      const sample = sampleAt(index, first);
+      if (sample?.comfortable) {
+        seed = index;
+        first = sample;
+        break;
+      }
+    }
+    if (seed !== firstScanIndex) break;
+    if (firstScanIndex - step < 0 && firstScanIndex + step >= scanFractions.length) break;
   }
+  if (first?.comfortable)
+    for (const direction of [-1, 1]) {
+      let warm = first;
+      for (let index = seed + direction; ; index += direction) {
+        const sample = sampleAt(index, warm);
+        if (!sample || !sample.comfortable) break;
+        warm = sample;
+      }
+    }
   const scanned = [...samples].sort((a, b) => a.length - b.length);
   const feasibleSamples = scanned.filter((s) => s.comfortable);
   let shortest = feasibleSamples[0];
@@ -187,10 +226,10 @@ export function adviseBlankLength(blank: BlankSpec, request: BlankAdviceRequest,
     advice.reason = stopped
       ? 'stopped before the advice finished'
       : closest
-        ? `no length from ${samples.length ? Math.min(...samples.map((s) => s.length_mm)) : 0} to ${samples.length ? Math.max(...samples.map((s) => s.length_mm)) : 0} mm reaches the targets with a comfortable arch on this section; at ${closest.length_mm} mm the ${shortfallReason({
+        ? `no length from ${samples.length ? Math.min(...samples.map((s) => s.length_mm)) : 0} to ${samples.length ? Math.max(...samples.map((s) => s.length_mm)) : 0} mm reaches the targets with a comfortable arch on this section; at ${closest.length_mm} mm the ${closestShapeReason({
             target,
             limits: closest.limits,
-            length: closest.length,
+            sources: { min_thickness_mm: 'the minimum thickness with a margin', uncut_end_mm: 'the uncut ends', max_slope: 'the steepest wall with a margin', tool_radius_mm: 'the tool with a margin' },
             cents: closest.outcome.best.evaluation.cents,
             uncutCents: closest.outcome.uncutCents,
             binding: bindingLimits(createDesignProblem(modelAt(closest.length), target, closest.limits, theory, adviceStationSpacing).space.grid, closest.outcome.best.evaluation.thickness, closest.limits),

@@ -67,6 +67,8 @@ export function designBarSolid(bar: BarFile, request: DesignRequest, run: Design
     const lineRequest: DesignRequest = {
       ...request,
       theory: 'timoshenko',
+      // Remedies on the line model would not be the solid's: the rounds look for none.
+      remedies: false,
       target: { hz: lineTarget[0]!, ratios: lineTarget.map((hz) => hz / lineTarget[0]!), tolerance_cents: innerTolerance },
     };
     result = designBar(bar, lineRequest, run, source);

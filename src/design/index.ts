@@ -6,4 +6,5 @@ export * from './adviseBlankLength.ts';
 export * from './whereToCutMap.ts';
 export * from './stationTable.ts';
 export * from './profileTemplateSvg.ts';
+export * from './workshopLimits.ts';
 export * from './designBarSolid.ts';

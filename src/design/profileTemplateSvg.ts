@@ -7,7 +7,7 @@ export interface TemplateOptions {
   readonly title?: string;
   /** A second line, e.g. the note and target partials. */
   readonly subtitle?: string;
-  /** Cord-hole positions from the left end, mm (drawn as crosses at mid-height). */
+  /** Cord-hole positions from the left end, mm, drawn as crosses at mid-height where the bar has no holes of its own (its `holes` are drawn to size). */
   readonly cord_holes_mm?: readonly number[];
   /** Length of the scale bar, mm (default 100, or less on a short bar). */
   readonly scale_bar_mm?: number;
@@ -36,8 +36,9 @@ export function profileTemplateSize(length_mm: number, thickness_mm: number): { 
  * A 1:1 side-profile template of a bar for printing and tracing: SVG whose width/height
  * attributes are in millimetres and whose viewBox is in millimetres, so one user unit is one mm
  * at 100 % print scale. Shows the bar (flat top, undercut profile), the blank's outline dashed,
- * the centre line, ticks every 10 mm (labelled every 50 mm) from the left end, the cord holes,
- * a scale bar to check the print, and a caution line.
+ * the centre line, ticks every 10 mm (labelled every 50 mm) from the left end, the cord holes (the
+ * bar's own drawn to size where they are drilled, with a centre line to mark from), a scale bar
+ * to check the print, and a caution line.
  */
 export function profileTemplateSvg(bar: BarFile, options: TemplateOptions = {}, source = 'template'): string {
   if (bar.section.shape !== 'rect') throw new InputError(source, 'section.shape', `only rect bars have a side profile (this bar is a ${bar.section.shape})`);
@@ -78,12 +79,26 @@ export function profileTemplateSvg(bar: BarFile, options: TemplateOptions = {}, 
     parts.push(`<line x1="${n(left + x)}" y1="${n(top)}" x2="${n(left + x)}" y2="${n(top - (major ? 3 : 1.5))}" stroke="black" stroke-width="0.2"/>`);
     if (major) parts.push(`<text x="${n(left + x)}" y="${n(top - 4)}" font-family="sans-serif" font-size="2.5" text-anchor="middle">${Math.round(x)}</text>`);
   }
-  // Cord holes.
-  for (const hole of options.cord_holes_mm ?? []) {
-    const x = left + hole;
-    const y = top + blank / 2;
-    parts.push(`<g stroke="#c00" stroke-width="0.25" fill="none"><circle cx="${n(x)}" cy="${n(y)}" r="1.5"/><line x1="${n(x - 3)}" y1="${n(y)}" x2="${n(x + 3)}" y2="${n(y)}"/><line x1="${n(x)}" y1="${n(top)}" x2="${n(x)}" y2="${n(top + blank)}"/></g>`);
-    parts.push(`<text x="${n(x)}" y="${n(top + blank + 4)}" font-family="sans-serif" font-size="2.5" fill="#c00" text-anchor="middle">cord hole ${n(hole)}</text>`);
+  // Cord holes: the bar's own to size (centred in the thickness unless z_mm says), else markers.
+  const thicknessAtMm = (x: number): number => {
+    for (let i = 1; i < pairs.length; i++) if (x <= pairs[i]![0]) return pairs[i - 1]![1] + ((pairs[i]![1] - pairs[i - 1]![1]) * (x - pairs[i - 1]![0])) / (pairs[i]![0] - pairs[i - 1]![0]);
+    return pairs[pairs.length - 1]![1];
+  };
+  if (bar.holes && bar.holes.length) {
+    for (const hole of bar.holes) {
+      const x = left + hole.x_mm;
+      const local = thicknessAtMm(hole.x_mm);
+      const y = top + local - (hole.z_mm ?? local / 2);
+      parts.push(`<g stroke="#c00" stroke-width="0.25" fill="none"><circle cx="${n(x)}" cy="${n(y)}" r="${n(hole.diameter_mm / 2)}"/><line x1="${n(x)}" y1="${n(top - 2)}" x2="${n(x)}" y2="${n(top + blank + 2)}"/></g>`);
+      parts.push(`<text x="${n(x)}" y="${n(top + blank + 4)}" font-family="sans-serif" font-size="2.5" fill="#c00" text-anchor="middle">cord hole ${n(hole.diameter_mm)} mm at ${n(hole.x_mm)}</text>`);
+    }
+  } else {
+    for (const hole of options.cord_holes_mm ?? []) {
+      const x = left + hole;
+      const y = top + blank / 2;
+      parts.push(`<g stroke="#c00" stroke-width="0.25" fill="none"><circle cx="${n(x)}" cy="${n(y)}" r="1.5"/><line x1="${n(x - 3)}" y1="${n(y)}" x2="${n(x + 3)}" y2="${n(y)}"/><line x1="${n(x)}" y1="${n(top)}" x2="${n(x)}" y2="${n(top + blank)}"/></g>`);
+      parts.push(`<text x="${n(x)}" y="${n(top + blank + 4)}" font-family="sans-serif" font-size="2.5" fill="#c00" text-anchor="middle">cord hole ${n(hole)}</text>`);
+    }
   }
   // Scale bar.
   const barY = top + blank + 12;

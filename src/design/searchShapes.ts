@@ -1,6 +1,32 @@
 import { centsCost, fitShape, type FittedShape, type SolveBudget } from './fitShape.ts';
 import type { DesignProblem } from './evaluateShape.ts';
 import type { ShapeFamily } from './ShapeFamily.ts';
+import { surfaceConstraints, worstViolation } from './surfaceConstraints.ts';
+
+/** Slack (m) below which a start counts as within the slope and radius limits (the fit's own acceptance slack). */
+const startSlack = 5e-6;
+
+/**
+ * A start within the slope and tool-radius limits: the same shape made shallower (every depth
+ * parameter scaled by 0.7 until the limits hold, at most 12 times; the other parameters kept).
+ * The fit never makes a broken limit worse, so a start beyond the limits would stay stuck
+ * there; every family's depth is proportional to its depth parameters, so scaling them down
+ * eases both the slope (∝ depth) and the curvature (∝ depth). No solve is needed.
+ */
+export function withinLimitsStart(problem: DesignProblem, family: ShapeFamily, q: ArrayLike<number>): Float64Array {
+  const m = family.parameterCount(problem.space);
+  const n = problem.space.grid.positions.length;
+  const start = Float64Array.from(q);
+  const depthParameters = family.name === 'free-form' ? Array.from({ length: m }, (_, k) => k) : [0];
+  const depth = new Float64Array(n);
+  const jacobian = new Float64Array(n * m);
+  for (let round = 0; round < 12; round++) {
+    family.depths(problem.space, start, depth, jacobian);
+    if (worstViolation(surfaceConstraints(problem, depth, jacobian, m)) <= startSlack) break;
+    for (const k of depthParameters) start[k]! *= 0.7;
+  }
+  return start;
+}
 
 /** Options of searchShapes. */
 export interface SearchOptions {
@@ -62,7 +88,7 @@ export function searchShapes(problem: DesignProblem, options: SearchOptions): Se
   for (const { family, q } of points) {
     if (exhausted()) break;
     starts++;
-    screened.push(fitShape(problem, family, q, { maxIterations: Math.min(screeningIterations, options.maxIterations), goal: options.goal, budget: options.budget }));
+    screened.push(fitShape(problem, family, withinLimitsStart(problem, family, q), { maxIterations: Math.min(screeningIterations, options.maxIterations), goal: options.goal, budget: options.budget }));
   }
   screened.sort(order);
   const fits: FittedShape[] = [];

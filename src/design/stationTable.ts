@@ -11,13 +11,15 @@ export interface StationRow {
   thickness_mm: number;
   /** Depth below the blank's full thickness. */
   depth_mm: number;
+  /** What is marked at this row: a cord hole's centre (its diameter). */
+  mark?: string;
 }
 
 /**
  * The thickness table a maker marks the blank from: a row every `step_mm` (default 5 mm) measured
- * out from the centre line both ways (the centre is a row), plus both ends; each row gives the
- * position from the left end and from the centre, the thickness and the depth of cut, read off
- * the piecewise-linear profile.
+ * out from the centre line both ways (the centre is a row), plus both ends and the centre of every
+ * cord hole (marked with its diameter); each row gives the position from the left end and from
+ * the centre, the thickness and the depth of cut, read off the piecewise-linear profile.
  */
 export function stationTable(bar: BarFile, step_mm = 5, source = 'table'): StationRow[] {
   if (bar.section.shape !== 'rect') throw new InputError(source, 'section.shape', `only rect bars have a thickness profile (this bar is a ${bar.section.shape})`);
@@ -34,19 +36,27 @@ export function stationTable(bar: BarFile, step_mm = 5, source = 'table'): Stati
     offsets.add(k * step_mm);
     offsets.add(-k * step_mm);
   }
+  const holeAt = new Map<number, string>();
+  for (const hole of bar.holes ?? []) {
+    const offset = round(hole.x_mm - centre, 2);
+    offsets.add(offset);
+    holeAt.set(offset, `cord hole ${+hole.diameter_mm.toFixed(2)} mm`);
+  }
   return [...offsets]
     .filter((o) => Math.abs(o) <= centre + 1e-9)
     .sort((a, b) => a - b)
     .map((offset) => {
       const x = Math.min(bar.length_mm, Math.max(0, centre + offset));
       const thickness = thicknessAt(profile, x);
-      return { from_left_mm: round(x, 2), from_centre_mm: round(offset, 2), thickness_mm: round(thickness, 2), depth_mm: round(blank - thickness, 2) };
+      const mark = holeAt.get(offset);
+      return { from_left_mm: round(x, 2), from_centre_mm: round(offset, 2), thickness_mm: round(thickness, 2), depth_mm: round(blank - thickness, 2), ...(mark ? { mark } : {}) };
     });
 }
 
-/** The table as CSV text (header row, comma-separated, mm), for a spreadsheet or printing. */
+/** The table as CSV text (header row, comma-separated, mm), for a spreadsheet or printing; a `mark` column when a row is marked (cord holes). */
 export function stationTableCsv(rows: readonly StationRow[]): string {
-  const lines = ['from_left_mm,from_centre_mm,thickness_mm,depth_mm'];
-  for (const row of rows) lines.push(`${row.from_left_mm},${row.from_centre_mm},${row.thickness_mm},${row.depth_mm}`);
+  const marked = rows.some((row) => row.mark);
+  const lines = [`from_left_mm,from_centre_mm,thickness_mm,depth_mm${marked ? ',mark' : ''}`];
+  for (const row of rows) lines.push(`${row.from_left_mm},${row.from_centre_mm},${row.thickness_mm},${row.depth_mm}${marked ? `,${row.mark ?? ''}` : ''}`);
   return `${lines.join('\n')}\n`;
 }

@@ -1,7 +1,8 @@
 import { bandedAddBlock, createBandedMatrix, type BandedMatrix } from '../eigen/BandedMatrix.ts';
 import { beamElement, beamElementScratch } from './beamElement.ts';
 import { elementTypeFor, type BeamElementType, type BeamTheory } from './beamElementType.ts';
-import type { BeamLine } from './BeamLine.ts';
+import type { BeamLine, LineHole } from './BeamLine.ts';
+import type { SectionLaw } from './sectionLaw.ts';
 import { elementThicknesses } from './elementThicknesses.ts';
 import { drilledElementRule, elementHoles } from './holeQuadrature.ts';
 
@@ -50,12 +51,45 @@ export function assembleBending(nodes: Float64Array, line: BeamLine, theory: Bea
   const holes = elementHoles(nodes, line.holes);
   for (let e = 0; e < elements; e++) {
     const hole = holes[e]!;
-    const drilled = hole >= 0 ? drilledElementRule(nodes[e]!, nodes[e + 1]!, line.holes![hole]!) : undefined;
-    beamElement(element, nodes[e + 1]! - nodes[e]!, thickness.start[e]!, thickness.end[e]!, line.law, ke, me, scratch, drilled);
+    const h = nodes[e + 1]! - nodes[e]!;
+    if (hole >= 0) {
+      const matrices = drilledElement(element, nodes[e]!, h, thickness.start[e]!, thickness.end[e]!, line.law, line.holes![hole]!, scratch);
+      bandedAddBlock(stiffness, e * stride, n, matrices.stiffness);
+      bandedAddBlock(mass, e * stride, n, matrices.mass);
+      continue;
+    }
+    beamElement(element, h, thickness.start[e]!, thickness.end[e]!, line.law, ke, me, scratch);
     bandedAddBlock(stiffness, e * stride, n, ke);
     bandedAddBlock(mass, e * stride, n, me);
   }
   return { nodes, theory, element, stiffness, mass, thickness, holes };
+}
+
+/** Drilled elements already integrated, by law (the designer re-assembles the same drilled ends hundreds of times). */
+const drilledCache = new WeakMap<SectionLaw, Map<string, { stiffness: Float64Array; mass: Float64Array }>>();
+/** Entries kept per law before the cache starts afresh. */
+const drilledCacheSize = 64;
+
+/**
+ * The matrices of an element inside a cord hole's span (the hole's angle rule), from the cache
+ * when the same element (type, length, thicknesses, place in the hole) was integrated with the
+ * same law before. The cached arrays are shared: read only.
+ */
+function drilledElement(type: BeamElementType, x0: number, h: number, t0: number, t1: number, law: SectionLaw, hole: LineHole, scratch: ReturnType<typeof beamElementScratch>): { stiffness: Float64Array; mass: Float64Array } {
+  let byKey = drilledCache.get(law);
+  if (!byKey) {
+    byKey = new Map();
+    drilledCache.set(law, byKey);
+  }
+  const key = `${type.theory}${type.localDofs}|${h}|${t0}|${t1}|${x0 - hole.position}|${hole.radius}|${hole.depthBelowTop}`;
+  const known = byKey.get(key);
+  if (known) return known;
+  const n = type.localDofs;
+  const matrices = { stiffness: new Float64Array(n * n), mass: new Float64Array(n * n) };
+  beamElement(type, h, t0, t1, law, matrices.stiffness, matrices.mass, scratch, drilledElementRule(x0, x0 + h, hole));
+  if (byKey.size >= drilledCacheSize) byKey.clear();
+  byKey.set(key, matrices);
+  return matrices;
 }
 
 /**

@@ -3,7 +3,7 @@ import type { Section } from '../section/Section.ts';
 import { sectionProperties } from '../section/sectionProperties.ts';
 import { defaultShearCoefficient } from '../section/shearCoefficient.ts';
 import { rectangleTorsionConstant, rectangleTorsionConstantDerivative } from '../section/rectangleTorsionConstant.ts';
-import { drilledSection } from '../section/drilledSection.ts';
+import { drilledBendingSection, drilledSection } from '../section/drilledSection.ts';
 
 /**
  * Properties per unit length of a beam as functions of the local thickness t (m): the bridge
@@ -57,7 +57,7 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
           }
         },
         evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
-          const s = drilledSection(b, t, chord, depthBelowTop);
+          const s = drilledBendingSection(b, t, chord, depthBelowTop);
           out[0] = E * s.secondMomentVertical;
           out[1] = kappa * G * s.area;
           out[2] = rho * s.area;
@@ -87,7 +87,7 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
         }
       },
       evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
-        const s = drilledSection(b, t, chord, depthBelowTop);
+        const s = drilledBendingSection(b, t, chord, depthBelowTop);
         out[0] = E * s.secondMomentLateral;
         out[1] = kappa * G * s.area;
         out[2] = rho * s.area;

@@ -17,3 +17,4 @@ export * from './keyboardFileTypes.ts';
 export * from './keyboardFile.ts';
 export * from './chimeSetFile.ts';
 export * from './woodConstants.ts';
+export * from './workshopFile.ts';

@@ -6,6 +6,8 @@ import { parseBarFile, type BarFileMaterial } from './barFile.ts';
 import { InputError, isInputError } from './InputError.ts';
 import { keyboardFileFormat, keyboardFileVersion, type KeyboardFile, type KeyboardLimits, type KeyboardResonators, type NoteSpan } from './keyboardFileTypes.ts';
 import { parseSpans } from './keyboardFileSpans.ts';
+import { midiToNoteName } from './noteName.ts';
+import { parseWorkshop } from './workshopFile.ts';
 import { isJsonObject as isObject } from './jsonFields.ts';
 
 export * from './keyboardFileTypes.ts';
@@ -90,6 +92,31 @@ function parseResonators(source: string, value: unknown, lowest: number, highest
 }
 
 /**
+ * The tuning of a keyboard file that gives none, by register (common practice, from memory: a
+ * wooden keyboard's bars tune three partials, 1:4:10, up to about E4, two, 1:4, up to about C6,
+ * and the fundamental alone above, where the overtones lie beyond what matters to the ear and a
+ * short bar cannot reach them). Tolerances ±2, 5, 15 cents (common practice). Spans cut to the
+ * keyboard's range (MIDI lowest–highest).
+ */
+export function commonPracticeTuning(lowest: number, highest: number): KeyboardFile['tuning'] {
+  const registers = [
+    { top: 64, ratios: [1, 4, 10], tolerance_cents: [2, 5, 15] }, // to E4
+    { top: 84, ratios: [1, 4], tolerance_cents: [2, 5] }, // to C6
+    { top: 127, ratios: [1], tolerance_cents: [2] },
+  ];
+  const spans: KeyboardFile['tuning'] = [];
+  let from = lowest;
+  for (const register of registers) {
+    const to = Math.min(register.top, highest);
+    if (to < from) continue;
+    spans.push({ from: midiToNoteName(from), to: midiToNoteName(to), ratios: [...register.ratios], tolerance_cents: [...register.tolerance_cents] });
+    from = to + 1;
+    if (from > highest) break;
+  }
+  return spans;
+}
+
+/**
  * Validates a parsed JSON value as a keyboard file (format "barwright.keyboard", version 1) and
  * returns it typed, with defaults filled. Throws InputError(source, field, rule) on the first
  * problem, e.g. `demo.keyboard.json: sections[1].from: E3 does not follow sections[0].to C3
@@ -99,7 +126,7 @@ export function parseKeyboardFile(value: unknown, source = 'keyboard'): Keyboard
   if (!isObject(value)) throw new InputError(source, 'keyboard', 'must be a JSON object');
   if (value.format !== keyboardFileFormat) throw new InputError(source, 'format', `must be "${keyboardFileFormat}" (got ${JSON.stringify(value.format)})`);
   if (value.version !== keyboardFileVersion) throw new InputError(source, 'version', `must be ${keyboardFileVersion} (got ${JSON.stringify(value.version)})`);
-  const known = ['format', 'version', 'name', 'range', 'spelling', 'pitch', 'material', 'bar_materials', 'sections', 'tuning', 'limits', 'blanks', 'resonators'];
+  const known = ['format', 'version', 'name', 'range', 'spelling', 'pitch', 'material', 'bar_materials', 'sections', 'tuning', 'limits', 'workshop', 'blanks', 'resonators'];
   for (const key of Object.keys(value)) if (!known.includes(key)) throw new InputError(source, key, `is not a keyboard-file field (known: ${known.join(', ')})`);
   const name = value.name ?? '';
   if (typeof name !== 'string') throw new InputError(source, 'name', 'must be a string');
@@ -128,7 +155,7 @@ export function parseKeyboardFile(value: unknown, source = 'keyboard'): Keyboard
       section.min_thickness_mm = number(source, `${field}.min_thickness_mm`, entry.min_thickness_mm, (n) => (n > 0 && n < thickness ? null : `${n} mm must be greater than 0 and less than the blank's ${thickness} mm`));
     return section;
   });
-  const tuning = parseSpans(source, 'tuning', value.tuning, lowest, highest, (field, entry) => {
+  const tuning = value.tuning === undefined ? commonPracticeTuning(lowest, highest) : parseSpans(source, 'tuning', value.tuning, lowest, highest, (field, entry) => {
     const ratios = parseRatios(source, `${field}.ratios`, entry.ratios);
     if (!Array.isArray(entry.tolerance_cents) || entry.tolerance_cents.length !== ratios.length)
       throw new InputError(source, `${field}.tolerance_cents`, `must list one tolerance per ratio (${ratios.length})`);
@@ -136,6 +163,7 @@ export function parseKeyboardFile(value: unknown, source = 'keyboard'): Keyboard
     return { ratios, tolerance_cents: tolerance };
   });
   const limits = parseLimits(source, value.limits);
+  const workshop = value.workshop === undefined ? undefined : parseWorkshop(value.workshop, source, 'workshop.');
   let blanks: KeyboardFile['blanks'] = {};
   if (value.blanks !== undefined) {
     if (!isObject(value.blanks)) throw new InputError(source, 'blanks', 'must be an object');
@@ -156,6 +184,7 @@ export function parseKeyboardFile(value: unknown, source = 'keyboard'): Keyboard
     sections,
     tuning,
     limits,
+    ...(workshop ? { workshop } : {}),
     blanks,
     ...(resonators ? { resonators } : {}),
   };

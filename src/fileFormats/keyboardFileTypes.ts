@@ -2,6 +2,7 @@
 // instrument described by register — range, pitch, timber, section and tuning schedules, cutting
 // limits, blanks and resonators — from which a whole keyboard is planned.
 import type { BarFileMaterial } from './barFile.ts';
+import type { Workshop } from './workshopFile.ts';
 
 /** A run of adjacent notes, both ends included, by note name (scientific pitch notation). */
 export interface NoteSpan {
@@ -27,13 +28,13 @@ export interface ResonatorEntry extends NoteSpan {
   inner_diameter_mm: number;
 }
 
-/** Workshop limits applied to every bar (per-span minimum thickness in `sections` wins). */
+/** Limits applied to every bar, overriding what the workshop's tools set (per-span minimum thickness in `sections` wins). */
 export interface KeyboardLimits {
   /** Thinnest point as a fraction of the blank thickness where a span gives no min_thickness_mm (default 0.25). */
   min_thickness_fraction?: number;
-  /** Steepest slope of the cut surface, rise over run (default 0.5). */
+  /** Steepest slope of the cut surface, rise over run (default: the workshop's steepest-walled finishing tool). */
   max_slope?: number;
-  /** Smallest radius of the cutting tool, mm (default 20; 0 for no limit). */
+  /** Smallest radius of the cutting tool, mm (default: the workshop's smallest finishing tool; 0 for no limit). */
   min_tool_radius_mm?: number;
 }
 
@@ -71,6 +72,8 @@ export interface KeyboardFile {
   sections: SectionEntry[];
   tuning: TuningEntry[];
   limits: KeyboardLimits;
+  /** The workshop the bars are cut in (its tools set the limits; `limits` given here override). Absent: barwright's default workshop. */
+  workshop?: Workshop;
   blanks: BlankStock;
   resonators?: KeyboardResonators;
 }

@@ -1,4 +1,5 @@
-import { designBar } from '../design/designBar.ts';
+import { designBar, type DesignRequest, type DesignResult } from '../design/designBar.ts';
+import { applyRemedy } from '../design/designRemedies.ts';
 import { describePlannedBar, type KeyboardBarResult } from './keyboardBarResult.ts';
 import type { KeyboardBarJob } from './keyboardBarJobs.ts';
 
@@ -8,13 +9,37 @@ export interface StoredKeyboardBar extends KeyboardBarResult {
 }
 
 /**
- * Designs one keyboard bar: the undercut for its blank, target, ratios, tolerances and limits
- * (the designer's designBar), then the check on a fine mesh, thicknesses, arch, cord holes and
- * resonator (describePlannedBar). Pure and synchronous: the unit of work of a batch, safe to run
- * in any worker (Node worker thread or web worker).
+ * Designs one keyboard bar: the undercut for its blank, target, ratios, tolerances, workshop and
+ * limits (the designer's designBar), then the check on a fine mesh, thicknesses, arch, cord holes
+ * and resonator (describePlannedBar). A plan never keeps a blank it chose that cannot be cut to
+ * its note: when the design misses, the designer's remedies for the blank (its length, then its
+ * thickness, each checked by designing again) give the blank the plan uses instead, and the bar
+ * says so. Pure and synchronous: the unit of work of a batch, safe to run in any worker (Node
+ * worker thread or web worker).
  */
 export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
-  const design = designBar(job.blank, { target: { hz: job.target_hz, ratios: job.ratios, tolerance_cents: job.tolerance_cents }, limits: job.limits }, {}, `bar ${job.note}`);
+  const source = `bar ${job.note}`;
+  const request: DesignRequest = {
+    target: { hz: job.target_hz, ratios: job.ratios, tolerance_cents: job.tolerance_cents },
+    limits: job.limits,
+    workshop: job.workshop,
+    limits_given_by: 'the keyboard file',
+    remedy_kinds: ['blank_length_mm', 'blank_thickness_mm'],
+    remedy_first_only: true,
+  };
+  let design: DesignResult = designBar(job.blank, request, {}, source);
+  const notes: string[] = job.schedule_note ? [job.schedule_note] : [];
+  if (!design.feasible && design.remedies?.length) {
+    const remedy = design.remedies.find((r) => r.kind === 'blank_length_mm') ?? design.remedies.find((r) => r.kind === 'blank_thickness_mm');
+    if (remedy) {
+      const changed = applyRemedy(job.blank, request, remedy);
+      const again = designBar(changed.bar, { ...changed.request, remedies: false }, {}, source);
+      if (again.feasible) {
+        notes.push(`the plan changed the blank: ${remedy.change} (the scheduled blank could not reach the targets)`);
+        design = again;
+      }
+    }
+  }
   const result = describePlannedBar(design.bar, {
     note: job.note,
     midi: job.midi,
@@ -26,7 +51,7 @@ export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
     predicted_hz: design.predicted_hz,
     ...(design.reason ? { reason: design.reason } : {}),
     ...(job.resonator ? { resonator: job.resonator } : {}),
-    ...(job.schedule_note ? { notes: [job.schedule_note] } : {}),
+    ...(notes.length ? { notes } : {}),
   });
   return { ...result, fingerprint: job.fingerprint };
 }

@@ -1,8 +1,9 @@
 import type { CutLimitsInput } from '../design/cutLimits.ts';
 import type { BarFile } from '../fileFormats/barFile.ts';
 import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
+import { defaultWorkshop, type Workshop } from '../fileFormats/workshopFile.ts';
 import type { ScheduledBlank } from './blankSchedule.ts';
-import type { KeyboardNote } from './keyboardNotes.ts';
+import { keyboardLimits, type KeyboardNote } from './keyboardNotes.ts';
 import { stableHash } from './stableHash.ts';
 
 /** One bar to design: plain data (structured-clone safe) so any worker can take it. */
@@ -20,8 +21,10 @@ export interface KeyboardBarJob {
   target_hz: number;
   ratios: number[];
   tolerance_cents: number[];
-  /** Cutting limits in the designer's input form (mm). */
+  /** Limits the keyboard file gives in the designer's input form (mm): each overrides the workshop's. */
   limits: CutLimitsInput;
+  /** The workshop whose tools set the other limits and whose drill makes the cord holes. */
+  workshop: Workshop;
   resonator?: { inner_diameter_mm: number; air_temperature_c: number; open_end: 'unflanged' | 'flanged' };
   /** The blank schedule's flag for this note, carried into the result. */
   schedule_note?: string;
@@ -29,9 +32,9 @@ export interface KeyboardBarJob {
 
 /**
  * The design jobs of a keyboard, lowest note first: each note's blank (scheduled length × its
- * section width × thickness, its material), target, ratios, tolerances, cutting limits (minimum
- * thickness, slope and tool radius; the uncut ends take the designer's default, a fraction of
- * each bar's length) and resonator, with a fingerprint of them all for resuming.
+ * section width × thickness, its material), target, ratios, tolerances, the workshop (the file's,
+ * else barwright's default) with the limits the file sets over it (keyboardLimits) and resonator,
+ * with a fingerprint of them all for resuming.
  */
 export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote[], schedule: readonly ScheduledBlank[]): KeyboardBarJob[] {
   return notes.map((note, i) => {
@@ -44,15 +47,13 @@ export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote
       section: { shape: 'rect', width_mm: note.width_mm, thickness_mm: note.thickness_mm },
       material: { ...note.material },
     };
-    const limits: CutLimitsInput = { min_thickness_mm: note.min_thickness_mm };
-    if (file.limits.max_slope !== undefined) limits.max_slope = file.limits.max_slope;
-    if (file.limits.min_tool_radius_mm !== undefined) limits.min_tool_radius_mm = file.limits.min_tool_radius_mm;
     const inputs = {
       blank: bar,
       target_hz: note.target_hz,
       ratios: note.ratios,
       tolerance_cents: note.tolerance_cents,
-      limits,
+      limits: keyboardLimits(file, note),
+      workshop: file.workshop ?? defaultWorkshop,
       ...(file.resonators && note.resonator_inner_diameter_mm !== undefined
         ? { resonator: { inner_diameter_mm: note.resonator_inner_diameter_mm, air_temperature_c: file.resonators.air_temperature_c, open_end: file.resonators.open_end } }
         : {}),
@@ -61,3 +62,4 @@ export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote
     return { key: note.name, fingerprint: stableHash(inputs), note: note.name, midi: note.midi, index: note.index, ...inputs };
   });
 }
+

@@ -27,7 +27,7 @@ export function barFileStem(bar: Pick<KeyboardBarResult, 'index' | 'note'>): str
  * The printable set: one 1:1 side-profile SVG per planned bar, lowest first — the designer's
  * single-bar template (profileTemplateSvg: flat top, undercut, blank outline, centre, 10 mm
  * ticks, scale bar, caution line) with the bar's note, target, blank and status in the heading
- * and its cord holes marked.
+ * and its cord holes (drawn to size where the bar has them, else marked at the nodes).
  */
 export function keyboardBarTemplates(bars: readonly KeyboardBarResult[]): BarTemplate[] {
   return [...bars]
@@ -51,16 +51,21 @@ export function keyboardBarTemplates(bars: readonly KeyboardBarResult[]): BarTem
 /**
  * Each planned bar's thickness at regular stations (the designer's stationTable, every `stepMm`
  * mm) as CSV per RFC 4180 (header, CRLF): position from the left end and from the centre,
- * thickness and depth of cut, mm to 0.01 — the table a maker marks the underside from.
+ * thickness and depth of cut, mm to 0.01, and a row at each cord hole marked with its diameter
+ * (a `mark` column, when the bar has holes) — the table a maker marks the underside from.
  */
 export function keyboardStationTables(bars: readonly KeyboardBarResult[], stepMm = 5): BarStationTable[] {
   return [...bars]
     .sort((a, b) => a.midi - b.midi)
-    .map((bar) => ({
-      file: `${barFileStem(bar)}.csv`,
-      csv: csvTable([
-        ['from_left_mm', 'from_centre_mm', 'thickness_mm', 'depth_mm'],
-        ...stationTable(bar.bar, stepMm, `stations ${bar.note}`).map((row) => [csvNumber(row.from_left_mm, 2), csvNumber(row.from_centre_mm, 2), csvNumber(row.thickness_mm, 2), csvNumber(row.depth_mm, 2)]),
-      ]),
-    }));
+    .map((bar) => {
+      const rows = stationTable(bar.bar, stepMm, `stations ${bar.note}`);
+      const marked = rows.some((row) => row.mark);
+      return {
+        file: `${barFileStem(bar)}.csv`,
+        csv: csvTable([
+          ['from_left_mm', 'from_centre_mm', 'thickness_mm', 'depth_mm', ...(marked ? ['mark'] : [])],
+          ...rows.map((row) => [csvNumber(row.from_left_mm, 2), csvNumber(row.from_centre_mm, 2), csvNumber(row.thickness_mm, 2), csvNumber(row.depth_mm, 2), ...(marked ? [row.mark ?? ''] : [])]),
+        ]),
+      };
+    });
 }

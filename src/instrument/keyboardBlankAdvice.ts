@@ -2,7 +2,8 @@ import { adviseBlankLength } from '../design/adviseBlankLength.ts';
 import type { CutLimitsInput } from '../design/cutLimits.ts';
 import type { BarFileMaterial } from '../fileFormats/barFile.ts';
 import type { KeyboardFile } from '../fileFormats/keyboardFileTypes.ts';
-import type { KeyboardNote } from './keyboardNotes.ts';
+import { keyboardLimits, type KeyboardNote } from './keyboardNotes.ts';
+import { defaultWorkshop, type Workshop } from '../fileFormats/workshopFile.ts';
 import type { LengthWindow } from './smoothLengths.ts';
 import { stableHash } from './stableHash.ts';
 import { defined } from '../fileFormats/jsonFields.ts';
@@ -17,6 +18,7 @@ export interface BlankAdviceJob {
   material: BarFileMaterial;
   target: { hz: number; ratios: number[]; tolerance_cents: number[] };
   limits: CutLimitsInput;
+  workshop: Workshop;
 }
 
 /** The blank advisor's answer for one note, as stored in a plan (mm). */
@@ -47,23 +49,21 @@ export interface NoteBlankWindow {
   uncut_length_mm: number;
 }
 
-/** The advice job of a note (its section, material, target, ratios, tolerances and limits). */
+/** The advice job of a note (its section, material, target, ratios, tolerances, workshop and limits). */
 export function blankAdviceJob(file: KeyboardFile, note: KeyboardNote): BlankAdviceJob {
-  const limits: CutLimitsInput = { min_thickness_mm: note.min_thickness_mm };
-  if (file.limits.max_slope !== undefined) limits.max_slope = file.limits.max_slope;
-  if (file.limits.min_tool_radius_mm !== undefined) limits.min_tool_radius_mm = file.limits.min_tool_radius_mm;
   const inputs = {
     section: { shape: 'rect' as const, width_mm: note.width_mm, thickness_mm: note.thickness_mm },
     material: note.material,
     target: { hz: note.target_hz, ratios: note.ratios, tolerance_cents: note.tolerance_cents },
-    limits,
+    limits: keyboardLimits(file, note),
+    workshop: file.workshop ?? defaultWorkshop,
   };
   return { key: note.name, fingerprint: stableHash(inputs), note: note.name, midi: note.midi, ...inputs };
 }
 
 /** Runs the designer's blank advisor on one note (pure, synchronous: a worker's unit of work). */
 export function adviseKeyboardBlank(job: BlankAdviceJob): StoredBlankAdvice {
-  const advice = adviseBlankLength({ section: job.section, material: job.material }, { target: job.target, limits: job.limits }, {}, `blank ${job.note}`);
+  const advice = adviseBlankLength({ section: job.section, material: job.material }, { target: job.target, limits: job.limits, workshop: job.workshop }, {}, `blank ${job.note}`);
   const stored: StoredBlankAdvice = { note: job.note, midi: job.midi, fingerprint: job.fingerprint, feasible: advice.feasible, uncut_length_mm: advice.uncut_length_mm, solves: advice.solves };
   if (advice.shortest_mm !== undefined) stored.shortest_mm = advice.shortest_mm;
   if (advice.longest_mm !== undefined) stored.longest_mm = advice.longest_mm;

@@ -1,3 +1,4 @@
+import type { CutLimitsInput } from '../design/cutLimits.ts';
 import { midiToNoteName } from '../fileFormats/noteName.ts';
 import { midiToHz } from '../fileFormats/concertPitch.ts';
 import { parseNote } from '../fileFormats/noteName.ts';
@@ -63,7 +64,7 @@ export function keyboardNotes(file: KeyboardFile): KeyboardNote[] {
       tolerance_cents: [...tuning.tolerance_cents],
       width_mm: section.width_mm,
       thickness_mm: section.thickness_mm,
-      min_thickness_mm: section.min_thickness_mm ?? (file.limits.min_thickness_fraction ?? defaultMinThicknessFraction) * section.thickness_mm,
+      min_thickness_mm: section.min_thickness_mm ?? (file.limits.min_thickness_fraction ?? file.workshop?.min_thickness_fraction ?? defaultMinThicknessFraction) * section.thickness_mm,
       material: own ?? file.material,
       material_from: own ? 'bar' : 'keyboard',
     };
@@ -77,4 +78,12 @@ export function keyboardNotes(file: KeyboardFile): KeyboardNote[] {
 /** The span ends of a schedule as MIDI numbers (for overviews that draw registers). */
 export function scheduleBoundaries(file: KeyboardFile): { sections: [number, number][]; tuning: [number, number][] } {
   return { sections: file.sections.map(spanMidi), tuning: file.tuning.map(spanMidi) };
+}
+
+/** The limits a keyboard file sets for a note over its workshop's (mm): the thinnest point always (per span, or the file's or workshop's fraction), the slope and tool radius when the file gives them. */
+export function keyboardLimits(file: KeyboardFile, note: KeyboardNote): CutLimitsInput {
+  const limits: CutLimitsInput = { min_thickness_mm: note.min_thickness_mm };
+  if (file.limits.max_slope !== undefined) limits.max_slope = file.limits.max_slope;
+  if (file.limits.min_tool_radius_mm !== undefined) limits.min_tool_radius_mm = file.limits.min_tool_radius_mm;
+  return limits;
 }

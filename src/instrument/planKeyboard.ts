@@ -7,6 +7,7 @@ import { keyboardNotes } from './keyboardNotes.ts';
 import { runKeyboardTask, type KeyboardTask, type KeyboardTaskResult } from './keyboardTask.ts';
 import { inThreadRunner, runBatch, type BatchRunner } from './runBatch.ts';
 import { woodCautions } from './workshopCautions.ts';
+import { defaultWorkshop } from '../fileFormats/workshopFile.ts';
 import { defined } from '../fileFormats/jsonFields.ts';
 
 /** A keyboard plan: blank advice, schedule and every designed bar, as stored and resumed (format "barwright.keyboard-plan"). */
@@ -23,6 +24,8 @@ export interface KeyboardPlan {
   schedule: ScheduledBlank[];
   /** Designed bars by note (missing ones are not done yet: the batch was cancelled). */
   bars: Record<string, StoredKeyboardBar>;
+  /** The workshop the bars were planned for (its name). */
+  workshop?: string;
   summary: { bars: number; designed: number; in_tolerance: number; out_of_tolerance: number; infeasible: number; advised: number; complete: boolean };
   cautions: readonly string[];
 }
@@ -103,7 +106,7 @@ export async function planKeyboard(file: KeyboardFile, options: PlanKeyboardOpti
   const spans = adviceSpans(notes);
   const adviceJobs = new Map(notes.map((note) => [note.name, blankAdviceJob(file, note)]));
   const advice: Record<string, StoredBlankAdvice> = reusableResults([...adviceJobs.values()], options.previous?.advice);
-  const base = { name: file.name, a4_hz: file.pitch.a4_hz, range: { ...file.range }, notes: notes.map((n) => n.name), cautions: woodCautions } as const;
+  const base = { name: file.name, a4_hz: file.pitch.a4_hz, range: { ...file.range }, notes: notes.map((n) => n.name), workshop: (file.workshop ?? defaultWorkshop).name ?? 'workshop', cautions: woodCautions } as const;
   const adviseRunner = runnerFor(runner, 'advise');
   let roundsDone = 0;
   for (;;) {

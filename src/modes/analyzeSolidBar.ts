@@ -36,9 +36,11 @@ export function solidBarOf(model: BarModel, choice: SolidMaterialChoice = solidM
 /** The line model's frequencies (Hz) of one kind: Timoshenko bending (vertical, lateral), St-Venant torsion, rod. */
 function lineFrequencies(model: BarModel, kind: SolidModeKind, count: number): Float64Array {
   if (count <= 0) return new Float64Array(0);
-  const nodes = buildMesh(model.profile, meshDensity(Math.max(count, 4)));
-  if (kind === 'bending' || kind === 'lateral') return solveBendingLine(bendingLine(model, kind === 'bending' ? 'vertical' : 'lateral'), nodes, 'timoshenko', count, undefined, analysisTolerance).frequencies;
-  return solveTorsionLine(kind === 'torsion' ? torsionLine(model) : longitudinalLine(model), nodes, count, undefined, analysisTolerance).frequencies;
+  // The line model meshes at the cord holes (their edges and centres are nodes) as its own analysis does.
+  const line = kind === 'bending' || kind === 'lateral' ? bendingLine(model, kind === 'bending' ? 'vertical' : 'lateral') : kind === 'torsion' ? torsionLine(model) : longitudinalLine(model);
+  const nodes = buildMesh(model.profile, meshDensity(Math.max(count, 4)), line.holes);
+  if (kind === 'bending' || kind === 'lateral') return solveBendingLine(line, nodes, 'timoshenko', count, undefined, analysisTolerance).frequencies;
+  return solveTorsionLine(line, nodes, count, undefined, analysisTolerance).frequencies;
 }
 
 function materialSummary(model: BarModel, choice: SolidMaterialChoice): SolidMaterialSummary {

@@ -42,6 +42,26 @@ export interface DrilledSection {
  * the solid rectangle's: A = bt, I = bt³/12, J by the series.
  */
 export function drilledSection(width: number, thickness: number, chord: number, depthBelowTop: number): DrilledSection {
+  const bending = drilledBendingSection(width, thickness, chord, depthBelowTop);
+  const b = width;
+  const t = thickness;
+  const c = chord;
+  const h = depthBelowTop;
+  // Fraction of J lost, q = (12c·z₀² + c³)/t³ with z₀ = h − t/2 (so dz₀/dt = −½).
+  const offset = h - t / 2;
+  const t3 = t * t * t;
+  const lost = (12 * c * offset * offset + c * c * c) / t3;
+  const lostSlope = (-12 * c * offset) / t3 - (3 * lost) / t;
+  const solidTorsion = rectangleTorsionConstant(b, t);
+  return {
+    ...bending,
+    torsionConstant: solidTorsion * (1 - lost),
+    torsionConstantSlope: rectangleTorsionConstantDerivative(b, t) * (1 - lost) - solidTorsion * lostSlope,
+  };
+}
+
+/** drilledSection without the torsion constant (the bending laws' hot path: the series is dear). */
+export function drilledBendingSection(width: number, thickness: number, chord: number, depthBelowTop: number): Omit<DrilledSection, 'torsionConstant' | 'torsionConstantSlope'> {
   const b = width;
   const t = thickness;
   const c = chord;
@@ -53,14 +73,6 @@ export function drilledSection(width: number, thickness: number, chord: number, 
   const secondMomentVertical = topMoment - firstMoment * centroid;
   // d/dt: dA = b, dQ = b·t, dI_top = b·t²; dI = dI_top − (2Q·dQ·A − Q²·dA)/A².
   const secondMomentVerticalSlope = b * t * t - 2 * centroid * b * t + centroid * centroid * b;
-  // Fraction of J lost, q = (12c·z₀² + c³)/t³ with z₀ = h − t/2 (so dz₀/dt = −½).
-  const offset = h - t / 2;
-  const t3 = t * t * t;
-  const lost = (12 * c * offset * offset + c * c * c) / t3;
-  const lostSlope = (-12 * c * offset) / t3 - (3 * lost) / t;
-  const solidTorsion = rectangleTorsionConstant(b, t);
-  const torsionConstant = solidTorsion * (1 - lost);
-  const torsionConstantSlope = rectangleTorsionConstantDerivative(b, t) * (1 - lost) - solidTorsion * lostSlope;
   return {
     area,
     areaSlope: b,
@@ -68,8 +80,6 @@ export function drilledSection(width: number, thickness: number, chord: number, 
     secondMomentVerticalSlope,
     secondMomentLateral: ((t - c) * b * b * b) / 12,
     secondMomentLateralSlope: (b * b * b) / 12,
-    torsionConstant,
-    torsionConstantSlope,
   };
 }
 

@@ -31,13 +31,39 @@ describe('keyboard file', () => {
     expect(notes[51]!.target_hz).toBeCloseTo(442 * 2 ** (27 / 12) * 2 ** (2 / 1200), 9);
     // Schedules by register.
     expect(notes.find((n) => n.name === 'D3')!.width_mm).toBe(60);
-    expect(notes.find((n) => n.name === 'C5')!.ratios).toEqual([1, 4, 10]);
-    expect(notes.find((n) => n.name === 'C#5')!.ratios).toEqual([1, 4]);
+    // Tuning by register as common practice has it (from memory): 1:4:10 to E4, 1:4 to C6, then the fundamental.
+    expect(notes.find((n) => n.name === 'E4')!.ratios).toEqual([1, 4, 10]);
+    expect(notes.find((n) => n.name === 'F4')!.ratios).toEqual([1, 4]);
+    expect(notes.find((n) => n.name === 'C6')!.ratios).toEqual([1, 4]);
+    expect(notes.find((n) => n.name === 'C#6')!.ratios).toEqual([1]);
     expect(notes[51]!.ratios).toEqual([1]);
     expect(notes[0]!.min_thickness_mm).toBeCloseTo(6, 12); // quarter of 24 mm
     expect(notes[0]!.material_from).toBe('bar');
     expect(notes[1]!.material).toEqual({ preset: 'demo-tropical-hardwood' });
     expect(notes.find((n) => n.name === 'C4')!.resonator_inner_diameter_mm).toBe(58);
+  });
+
+  it('tunes by register as common practice has it when the file gives no tuning (from memory), cut to its range', () => {
+    const file = demo();
+    delete file.tuning;
+    expect(parseKeyboardFile(file, 'k.json').tuning).toEqual([
+      { from: 'A2', to: 'E4', ratios: [1, 4, 10], tolerance_cents: [2, 5, 15] },
+      { from: 'F4', to: 'C6', ratios: [1, 4], tolerance_cents: [2, 5] },
+      { from: 'C#6', to: 'C7', ratios: [1], tolerance_cents: [2] },
+    ]);
+    // The demo keyboard follows it.
+    expect(parseKeyboardFile(demo(), 'k.json').tuning).toEqual(parseKeyboardFile(file, 'k.json').tuning);
+    const high = { ...file, range: { lowest: 'F5', highest: 'C8' }, sections: [{ from: 'F5', to: 'C8', width_mm: 36, thickness_mm: 18 }], bar_materials: {}, pitch: { a4_hz: 442 }, resonators: undefined };
+    expect(parseKeyboardFile(high, 'k.json').tuning.map((t) => [t.from, t.to, t.ratios.length])).toEqual([
+      ['F5', 'C6', 2],
+      ['C#6', 'C8', 1],
+    ]);
+  });
+
+  it('reads its workshop section with the workshop file’s rules, naming the field', () => {
+    const file = { ...demo(), workshop: { name: 'our shop', tools: [{ kind: 'drum', radius_mm: 15 }], cord_holes: { diameter_mm: 5, clearance_mm: 2 } } };
+    expect(parseKeyboardFile(file, 'k.json').workshop).toEqual(file.workshop);
+    expect(problem((f) => (f.workshop = { tools: [{ kind: 'drum', radius_mm: 15 }], cord_holes: { diameter_mm: 50, clearance_mm: 2 } }))).toBe('k.json: workshop.cord_holes.diameter_mm: must be from 0 to 20 mm (got 50)');
   });
 
   it('names the file, the field and the rule for each kind of mistake', () => {

@@ -1,11 +1,12 @@
 import { designBar, designBarSolid, type DesignRequest, type SolidDesignResult, parseToleranceList, profileTemplateSvg, stationTable, stationTableCsv, whereToCutMap, type CutLimitsInput } from '../../design/index.ts';
-import { InputError } from '../../fileFormats/index.ts';
-import { fixed, formatTable, numberOption, parseOptions, toJson, type Command } from '../command.ts';
+import { InputError, parseWorkshopFile } from '../../fileFormats/index.ts';
+import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
 import { sessionSummary } from '../readSession.ts';
 import { calibratedDesign, calibrationNote } from '../../session/index.ts';
 
 const positive = (n: number): string | null => (n > 0 ? null : 'must be greater than 0');
+const signed = (c: number): string => `${c >= 0 ? '+' : '−'}${Math.abs(c).toFixed(2)}`;
 const nonNegative = (n: number): string | null => (n >= 0 ? null : 'must be 0 or more');
 
 /** `barwright design BAR (--note NAME | --hz F) …`: plans an undercut (contract). */
@@ -14,7 +15,7 @@ export const designCommand: Command = {
   summary: 'plan the undercut that tunes a blank to a note and partial ratios, within workshop limits',
   usage:
     'barwright design BAR (--note NAME | --hz F) [--a4 HZ] [--ratios 1:4:10|1:4|1:3|1:3:6|fundamental|A:B:C] [--tolerance-cents 2,5,15] ' +
-    '[--min-thickness-mm T] [--uncut-end-mm L] [--max-slope S] [--tool-radius-mm R] [--allow-shortening [--max-shortening-mm M]] ' +
+    '[--workshop FILE] [--min-thickness-mm T] [--uncut-end-mm L] [--max-slope S] [--tool-radius-mm R] [--allow-shortening [--max-shortening-mm M]] ' +
     '[--theory timoshenko|euler-bernoulli|solid] [--session SESSION [--lots LOTS]] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
@@ -23,6 +24,7 @@ export const designCommand: Command = {
       a4: { type: 'string' },
       ratios: { type: 'string' },
       'tolerance-cents': { type: 'string' },
+      workshop: { type: 'string' },
       'min-thickness-mm': { type: 'string' },
       'uncut-end-mm': { type: 'string' },
       'max-slope': { type: 'string' },
@@ -58,6 +60,7 @@ export const designCommand: Command = {
     const shortening = numberOption(values['max-shortening-mm'], 'max-shortening-mm', nonNegative);
     if (shortening !== undefined) limits.max_shortening_mm = shortening;
     const path = positionals[0]!;
+    const workshop = values.workshop !== undefined ? parseWorkshopFile(await readJsonFile(values.workshop, io), values.workshop) : undefined;
     const bar = await readBarFile(path, io);
     const request: DesignRequest = {
       target: {
@@ -68,6 +71,8 @@ export const designCommand: Command = {
         ...(values['tolerance-cents'] !== undefined ? { tolerance_cents: parseToleranceList(values['tolerance-cents']) } : {}),
       },
       limits,
+      limits_given_by: 'given on the command line',
+      ...(workshop ? { workshop } : {}),
       theory: lineTheory,
     };
     if (values.lots !== undefined && values.session === undefined) throw new InputError('command line', '--lots', 'goes with --session (the lot of the session’s bar)');
@@ -90,9 +95,10 @@ export const designCommand: Command = {
     if (calibrated) lines.push(`Calibrated: ${calibrationNote(calibrated.summary, values.session!)}`);
     lines.push(result.feasible ? 'Feasible: every partial within tolerance.' : `NOT FEASIBLE — ${result.reason ?? 'targets not reached'}`);
     lines.push('');
+    const shift = result.cord_holes?.shift_cents;
     lines.push(
       formatTable([
-        ['partial', 'target Hz', solid ? 'solid Hz' : 'predicted Hz', 'cents', 'tolerance', ...(solid ? ['line model Hz', 'line cents'] : [])],
+        ['partial', 'target Hz', solid ? 'solid Hz' : 'predicted Hz', 'cents', 'tolerance', ...(solid ? ['line model Hz', 'line cents'] : []), ...(shift ? ['drilling moves (cents)'] : [])],
         ...result.target_hz.map((target, k) => [
           String(k + 1),
           fixed(target, 2),
@@ -100,23 +106,47 @@ export const designCommand: Command = {
           fixed(result.cents_error[k]!, 2),
           `±${result.tolerance_cents[k]}`,
           ...(solid ? [fixed(solid.solid.line_model_hz[k]!, 2), fixed(solid.solid.line_model_cents[k]!, 2)] : []),
+          ...(shift ? [signed(shift[k]!)] : []),
         ]),
       ]),
     );
     lines.push('');
     lines.push(`Arch: ${result.shape.family}; thinnest ${fixed(result.thinnest_mm, 2)} mm at ${fixed(result.thinnest_at_mm, 1)} mm; ${fixed(result.removed_volume_mm3 / 1000, 1)} cm³ removed${result.shortened_mm > 0 ? `; shortened by ${fixed(result.shortened_mm, 1)} mm (half at each end)` : ''}.`);
-    lines.push(`Cord holes (nodes of the fundamental): ${result.cord_holes_mm.map((x) => `${fixed(x, 1)} mm`).join(', ')} from the left end.`);
-    lines.push(`Limits at their edge: ${result.binding_limits.length ? result.binding_limits.join(', ') : 'none'} (min thickness ${result.limits.min_thickness_mm} mm, uncut ends ${result.limits.uncut_left_mm} / ${result.limits.uncut_right_mm} mm, max slope ${result.limits.max_slope}, tool radius ${result.limits.min_tool_radius_mm} mm).`);
-    lines.push(`${result.solves} solver runs.`);
+    const holes = result.cord_holes;
+    if (holes) {
+      lines.push(
+        `Cord holes: ${fixed(holes.diameter_mm, 1)} mm at ${holes.x_mm.map((x) => `${fixed(x, 1)} mm`).join(' and ')} from the left end (the nodes of the fundamental: ${result.cord_holes_mm.map((x) => fixed(x, 1)).join(', ')} mm), ${fixed(holes.clearance_mm, 1)} mm clear of the arch${holes.drilled_already ? '; drilled already' : ''}.`,
+      );
+      if (holes.shift_cents && holes.undrilled_hz)
+        lines.push(
+          `Drilling them moves the partials by ${holes.shift_cents.map(signed).join(', ')} cents: drill first and tune to the targets, or drill last and tune the undrilled bar to ${holes.undrilled_hz.map((f) => fixed(f, 2)).join(', ')} Hz.`,
+        );
+    } else lines.push(`Cord holes (nodes of the fundamental): ${result.cord_holes_mm.map((x) => `${fixed(x, 1)} mm`).join(', ')} from the left end.`);
+    lines.push(`Limits (workshop: ${result.workshop}):`);
+    lines.push(
+      formatTable([
+        ['limit', 'value', 'set by'],
+        ['thinnest', `${+result.limits.min_thickness_mm.toFixed(2)} mm`, result.limit_sources.min_thickness_mm],
+        ['uncut ends', `${fixed(result.limits.uncut_left_mm, 1)} / ${fixed(result.limits.uncut_right_mm, 1)} mm`, result.limit_sources.uncut_end_mm],
+        ['steepest wall', `${result.limits.max_slope}`, result.limit_sources.max_slope],
+        ['tool radius', `${result.limits.min_tool_radius_mm} mm`, result.limit_sources.tool_radius_mm],
+      ]).replace(/^/gm, '  '),
+    );
+    lines.push(`Limits at their edge: ${result.binding_limits.length ? result.binding_limits.join(', ') : 'none'}. ${result.solves} solver runs.`);
+    if (result.remedies) {
+      lines.push('');
+      lines.push(result.remedies.length ? 'Remedies, cheapest first (each designed again and checked):' : 'No single change tried meets the target.');
+      result.remedies.forEach((remedy, i) => lines.push(`  ${i + 1}. ${remedy.change} (${remedy.kind} = ${Array.isArray(remedy.value) ? remedy.value.join(':') : remedy.value}; recovers ${fixed(remedy.cents_gained, 1)} cents)`));
+    }
     if (solid)
       lines.push(
         `Solid model: ${solid.solid.solid_solves} solid solves; the line model's targets corrected ${solid.solid.solid_solves - 1} time${solid.solid.solid_solves === 2 ? '' : 's'} until the solid partials met the tolerances${solid.solid.converged ? '' : ' (they did not)'}. The line model alone would call this arch ${solid.solid.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${fixed(c, 1)}`).join(' / ')} cents.`,
       );
     for (const warning of result.warnings) lines.push(`Warning: ${warning}`);
     lines.push('');
-    lines.push('Thickness every 5 mm from the centre line (rows inside the cut, and the ends):');
-    const cutRows = table.filter((row, i) => row.depth_mm > 0 || i === 0 || i === table.length - 1 || (table[i - 1]?.depth_mm ?? 0) > 0 || (table[i + 1]?.depth_mm ?? 0) > 0);
-    lines.push(formatTable([['from centre mm', 'from left mm', 'thickness mm', 'depth mm'], ...cutRows.map((r) => [fixed(r.from_centre_mm, 1), fixed(r.from_left_mm, 1), fixed(r.thickness_mm, 2), fixed(r.depth_mm, 2)])]));
+    lines.push('Thickness every 5 mm from the centre line (rows inside the cut, the cord holes and the ends):');
+    const cutRows = table.filter((row, i) => row.mark || row.depth_mm > 0 || i === 0 || i === table.length - 1 || (table[i - 1]?.depth_mm ?? 0) > 0 || (table[i + 1]?.depth_mm ?? 0) > 0);
+    lines.push(formatTable([['from centre mm', 'from left mm', 'thickness mm', 'depth mm', ''], ...cutRows.map((r) => [fixed(r.from_centre_mm, 1), fixed(r.from_left_mm, 1), fixed(r.thickness_mm, 2), fixed(r.depth_mm, 2), r.mark ?? ''])]));
     if (map) {
       lines.push('');
       lines.push(`Where to cut: cents per ${map.depth_mm} mm removed over ${map.strip_mm} mm, every 10 mm from the left end:`);

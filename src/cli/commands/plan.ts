@@ -3,7 +3,7 @@ import { mkdir, readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { type StoredKeyboardBar, type KeyboardTask, type KeyboardTaskResult, keyboardBarTemplates, keyboardStationTables, keyboardCutListCsv, planKeyboard, type KeyboardPlan, signedNumber } from '../../instrument/index.ts';
 import { createWorkerPool, keyboardBarWorkerUrl } from '../../instrument/index.node.ts';
-import { parseKeyboardFile, InputError } from '../../fileFormats/index.ts';
+import { parseKeyboardFile, parseWorkshopFile, InputError } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
 import { keyboardFileWithLots, type LotMaterialNote } from '../../session/index.ts';
 import { readLotFile } from '../readSession.ts';
@@ -37,7 +37,7 @@ function planTable(plan: KeyboardPlan): string {
   }
   const s = plan.summary;
   const lines = [
-    `${plan.name || 'Keyboard'}: ${plan.range.lowest}–${plan.range.highest}, ${s.bars} bars at A4 = ${plan.a4_hz} Hz`,
+    `${plan.name || 'Keyboard'}: ${plan.range.lowest}–${plan.range.highest}, ${s.bars} bars at A4 = ${plan.a4_hz} Hz${plan.workshop ? `, cut in ${plan.workshop}` : ''}`,
     '',
     formatTable(rows),
     '',
@@ -65,11 +65,12 @@ function lotLines(notes: readonly LotMaterialNote[]): string {
 export const planCommand: Command = {
   name: 'plan',
   summary: 'plan a whole keyboard: blank schedule, every bar designed, cut list, 1:1 templates',
-  usage: 'barwright plan KEYBOARD [--lots LOTS] [--out DIR] [--workers N] [--fresh] [--quiet] [--json]',
+  usage: 'barwright plan KEYBOARD [--workshop FILE] [--lots LOTS] [--out DIR] [--workers N] [--fresh] [--quiet] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       out: { type: 'string' },
       lots: { type: 'string' },
+      workshop: { type: 'string' },
       workers: { type: 'string' },
       fresh: { type: 'boolean' },
       quiet: { type: 'boolean' },
@@ -78,6 +79,11 @@ export const planCommand: Command = {
     if (positionals.length !== 1) throw new InputError('command line', 'KEYBOARD', 'give exactly one keyboard file');
     const path = positionals[0]!;
     let file = parseKeyboardFile(await readJsonFile(path, io), path);
+    // A workshop file given on the command line replaces the keyboard file's own.
+    if (values.workshop !== undefined) {
+      const { format: _format, version: _version, ...workshop } = parseWorkshopFile(await readJsonFile(values.workshop, io), values.workshop);
+      file = { ...file, workshop };
+    }
     // The remaining bars of each lot are planned from what its finished bars taught.
     let fromLots: LotMaterialNote[] = [];
     if (values.lots !== undefined) ({ file, notes: fromLots } = keyboardFileWithLots(file, await readLotFile(values.lots, io)));
