@@ -1,4 +1,4 @@
-import { analyzeBar } from '../modes/analyzeBar.ts';
+import { analyzeLineBar } from '../modes/analyzeLineBar.ts';
 import type { BarFile } from '../fileFormats/barFile.ts';
 import { closedTube } from '../resonator/closedTube.ts';
 
@@ -86,7 +86,7 @@ export function describePlannedBar(bar: BarFile, context: PlannedBarContext): Ke
     [bar.length_mm, blankThickness],
   ];
   const partials = context.ratios.length;
-  const analysis = analyzeBar(bar, { modes: Math.max(4, partials), elements: checkElements });
+  const analysis = analyzeLineBar(bar, { modes: Math.max(4, partials), elements: checkElements });
   const checkHz = analysis.bending.slice(0, partials).map((m) => m.hz);
   const checkCents = checkHz.map((hz, k) => cents(hz, context.target_hz[k]!));
   const outside = checkCents.flatMap((c, k) => (Math.abs(c) > context.tolerance_cents[k]! ? [`partial ${k + 1} is ${c > 0 ? '+' : ''}${c.toFixed(1)} cents (tolerance ±${context.tolerance_cents[k]})`] : []));

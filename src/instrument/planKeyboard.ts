@@ -4,8 +4,8 @@ import type { StoredKeyboardBar } from './designKeyboardBar.ts';
 import { adviceSpans, blankAdviceJob, noteBlankWindows, notesToAdvise, type StoredBlankAdvice } from './keyboardBlankAdvice.ts';
 import { keyboardBarJobs, type KeyboardBarJob } from './keyboardBarJobs.ts';
 import { keyboardNotes } from './keyboardNotes.ts';
-import { runKeyboardTask, type KeyboardTask, type KeyboardTaskResult } from './keyboardTask.ts';
-import { inThreadRunner, runBatch, type BatchRunner } from './runBatch.ts';
+import type { KeyboardTask, KeyboardTaskResult } from './keyboardTask.ts';
+import { runBatch, type BatchRunner } from './runBatch.ts';
 import { woodCautions } from './workshopCautions.ts';
 import { defaultWorkshop } from '../fileFormats/workshopFile.ts';
 import { defined } from '../fileFormats/jsonFields.ts';
@@ -41,8 +41,12 @@ export interface PlanProgress {
 
 /** Options of planKeyboard. */
 export interface PlanKeyboardOptions {
-  /** Who runs the tasks (default: this thread). A Node worker pool or web workers fit here. */
-  runner?: BatchRunner<KeyboardTask, KeyboardTaskResult>;
+  /**
+   * Who runs the tasks: a Node worker pool, web workers, or `inThreadRunner(runKeyboardTask)`.
+   * Given by the caller so the planner itself never loads the designer (a page's main bundle
+   * stays free of it: the work happens in the workers).
+   */
+  runner: BatchRunner<KeyboardTask, KeyboardTaskResult>;
   /** An earlier plan (or part of it) to resume from: advice and bars with unchanged inputs are kept. */
   previous?: Partial<Pick<KeyboardPlan, 'bars' | 'advice'>>;
   onProgress?: (progress: PlanProgress) => void;
@@ -100,8 +104,8 @@ function runnerFor<K extends KeyboardTask['kind']>(runner: BatchRunner<KeyboardT
  * Advice and bars already in `previous` with the same inputs are skipped; progress is reported
  * after every task; the signal stops the plan after the tasks in flight (summary.complete false).
  */
-export async function planKeyboard(file: KeyboardFile, options: PlanKeyboardOptions = {}): Promise<KeyboardPlan> {
-  const runner = options.runner ?? inThreadRunner(runKeyboardTask);
+export async function planKeyboard(file: KeyboardFile, options: PlanKeyboardOptions): Promise<KeyboardPlan> {
+  const runner = options.runner;
   const notes = keyboardNotes(file);
   const spans = adviceSpans(notes);
   const adviceJobs = new Map(notes.map((note) => [note.name, blankAdviceJob(file, note)]));

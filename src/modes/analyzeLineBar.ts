@@ -1,7 +1,8 @@
 import type { BeamTheory } from '../fe/beamElementType.ts';
 import { buildMesh } from '../fe/buildMesh.ts';
 import { isAxisymmetric } from '../section/Section.ts';
-import type { BarModel } from './BarModel.ts';
+import { barModelFromFile, type BarModel } from './BarModel.ts';
+import type { BarFile } from '../fileFormats/barFile.ts';
 import type { AnalyzeOptions, BarAnalysis, ModeResult } from './BarAnalysis.ts';
 import { collisionWarnings, collisionWindowCents, type OtherMode } from './collisionWarnings.ts';
 import { meshDensity } from './meshDensity.ts';
@@ -80,4 +81,13 @@ export function analyzeLineBarModel(model: BarModel, options: AnalyzeOptions & {
   if (!isAxisymmetric(model.section)) others.push(...lateral.map((m) => ({ family: 'lateral' as const, mode: m.mode, hz: m.hz })));
   const warnings = collisionWarnings(Array.from(vertical.frequencies.subarray(0, 3)), others);
   return { theory, bending, torsion, lateral, warnings, mesh: { elements: nodes.length - 1 } };
+}
+
+/**
+ * analyzeBar for the line theories only (Timoshenko by default, or Euler–Bernoulli), from a bar
+ * file: the same result without loading the solid model, for callers that never ask for it
+ * (the workbench's quick solver worker, sessions, the keyboard check).
+ */
+export function analyzeLineBar(bar: BarFile, options: AnalyzeOptions & { theory?: BeamTheory } = {}): BarAnalysis {
+  return analyzeLineBarModel(barModelFromFile(bar), options);
 }

@@ -1,6 +1,8 @@
 import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
-import { analyzeBar, type AnalyzeOptions, type BarAnalysis } from '../modes/analyzeBar.ts';
+import type { AnalyzeOptions, BarAnalysis } from '../modes/BarAnalysis.ts';
+import { analyzeLineBar } from '../modes/analyzeLineBar.ts';
+import type { BeamTheory } from '../fe/beamElementType.ts';
 import { barModelFromFile } from '../modes/BarModel.ts';
 import { collisionWarnings, type OtherMode } from '../modes/collisionWarnings.ts';
 import { designBar, type DesignRequest, type DesignResult, type DesignRunOptions } from '../design/designBar.ts';
@@ -117,9 +119,9 @@ export function calibrationNote(summary: CalibrationSummary, source: string): st
  * calibration's own prediction law, predictShape), ratios and collision warnings recomputed.
  * Torsion and lateral modes use the calibrated moduli only. Adds `calibration` (the summary).
  */
-export function calibratedAnalysis(bar: BarFile, summary: CalibrationSummary, options: AnalyzeOptions = {}): BarAnalysis & { calibration: CalibrationSummary } {
+export function calibratedAnalysis(bar: BarFile, summary: CalibrationSummary, options: AnalyzeOptions & { theory?: BeamTheory } = {}): BarAnalysis & { calibration: CalibrationSummary } {
   const real = correctedBar(bar, summary);
-  const analysis = analyzeBar({ ...real, material: calibratedMaterial(bar.material, summary) }, options);
+  const analysis = analyzeLineBar({ ...real, material: calibratedMaterial(bar.material, summary) }, options);
   const depth = archDepth(barModelFromFile(real));
   const factors = analysis.bending.map((_, n) => Math.exp((summary.correction_per_depth[n] ?? 0) * depth));
   const fundamental = analysis.bending[0]!.hz * factors[0]!;
@@ -168,7 +170,7 @@ export function calibratedDesign(bar: BarFile, request: DesignRequest, summary: 
     if (settled) break;
   }
   const factors = factorsAt(depth);
-  const predicted = analyzeBar(result.bar, { modes: targets.length }).bending.map((mode, n) => mode.hz * factors[n]!);
+  const predicted = analyzeLineBar(result.bar, { modes: targets.length }).bending.map((mode, n) => mode.hz * factors[n]!);
   const error = predicted.map((hz, n) => cents(hz, targets[n]!));
   const feasible = error.every((c, n) => Math.abs(c) <= result.tolerance_cents[n]!);
   const designed: DesignResult & { calibration: CalibrationSummary } = {

@@ -71,7 +71,12 @@ describe('the 3D check in the shape view', () => {
       await saved(page);
       const run = page.locator('[data-testid="solid-run"]');
       // The shape view is loaded on first use (the dev server compiles it then): allow for it.
-      await run.waitFor({ timeout: 90_000 });
+      // The dev server may reload the page once while it prepares a module seen for the first time.
+      await run.waitFor({ timeout: 60_000 }).catch(async () => {
+        await page.screenshot({ path: artifactPath(`solid-check-slow-${viewport.width}.png`), fullPage: true });
+        await page.reload();
+        await run.waitFor({ timeout: 90_000 });
+      });
       await run.scrollIntoViewIfNeeded();
       await run.click();
       const table = page.locator('[data-testid="solid-modes"]');

@@ -6,7 +6,7 @@ import { customElement, property, state } from 'lit/decorators.js';
 import { barMaterialFamily, stableHash, type BarAnalysis, type BarFile, type LotPrior, type ModeResult, type SessionFile } from '../../src/index.ts';
 import type { SolidModesResult } from '../worker/solverProtocol.ts';
 import { TaskController, workerJob } from '../controllers/TaskController.ts';
-import { solver } from '../worker/SolverClient.ts';
+import { solidSolver } from '../worker/SolverClient.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatCents, formatHz, formatMm, formatNumber } from '../format.ts';
 import type { PlottedMode } from './bw-mode-chart.ts';
@@ -85,7 +85,7 @@ export class BwSolidCheck extends LitElement {
     const bar = this.bar;
     if (!bar) return;
     this.chosen = { family: 'bending', mode: 1 };
-    this.solid.run({ subject: this.barId, key: this.keyOf(bar) }, workerJob(solver, 'solidModes', { bar, modes: this.partials, ...this.calibrationInputs }));
+    this.solid.run({ subject: this.barId, key: this.keyOf(bar) }, workerJob(solidSolver, 'solidModes', { bar, modes: this.partials, ...this.calibrationInputs }));
   }
 
   private modesOf(analysis: BarAnalysis): { family: Family; mode: ModeResult }[] {

@@ -2,10 +2,10 @@
 // (a bar's modes while dragging, a chime set, resonators) share one worker so they answer at
 // once; the keyboard overview's many-bar analysis has a worker of its own and stops between
 // bars when cancelled; a design and next-cut advice, which cannot stop mid-way, each get a
-// worker of their own (at most two at once), as does a bar on the 3D solid model, so cancelling
-// one never touches another job.
+// worker of their own (at most two at once), so cancelling one never touches another job. The 3D
+// model has a worker module of its own (solidWorker.ts), started per job.
 import { JobClient, type JobWorkerLike } from './JobClient.ts';
-import type { SolverJobs } from './solverProtocol.ts';
+import type { SolidJobs, SolverJobs } from './solverProtocol.ts';
 
 /** Starts one solver worker (Vite bundles it from this URL pattern). */
 export function startSolverWorker(name: string): JobWorkerLike {
@@ -18,7 +18,7 @@ export class SolverClient extends JobClient<SolverJobs> {
     super({
       name: 'barwright-solver',
       spawn,
-      lanes: { analyze: 'quick', chimeSet: 'quick', resonators: 'quick', analyzeMany: 'batch', design: 'own', nextCut: 'own', solidModes: 'own' },
+      lanes: { analyze: 'quick', chimeSet: 'quick', resonators: 'quick', analyzeMany: 'batch', design: 'own', nextCut: 'own' },
       ownLimit: 2,
       spareWorkers: 1,
     });
@@ -27,3 +27,11 @@ export class SolverClient extends JobClient<SolverJobs> {
 
 /** The page's one solver client. */
 export const solver = new SolverClient();
+
+/** Starts one 3D-model worker (Vite bundles it from this URL pattern). */
+export function startSolidWorker(name: string): JobWorkerLike {
+  return new Worker(new URL('./solidWorker.ts', import.meta.url), { type: 'module', name }) as unknown as JobWorkerLike;
+}
+
+/** The page's 3D-model client: a job at a time in a worker of its own, kept for the next check (a cancel terminates only it). */
+export const solidSolver = new JobClient<SolidJobs>({ name: 'barwright-solid', spawn: startSolidWorker, lanes: { solidModes: 'own' }, ownLimit: 1, spareWorkers: 1 });

@@ -4,13 +4,13 @@
 // between bars.
 import type { JobHandlers } from './serveJobs.ts';
 import type { SolverJobs } from './solverProtocol.ts';
+import { summaryOf } from './calibrationCache.ts';
 import {
-  analyzeBar,
+  analyzeLineBar,
   calibrateSession,
   calibratedAnalysis,
   calibratedDesign,
   calibratedMaterial,
-  calibrationSummary,
   chimeCutListCsv,
   closedTubeResonator,
   correctedBar,
@@ -20,29 +20,9 @@ import {
   parseChimeSetFile,
   parseSessionFile,
   planChimeSet,
-  stableHash,
   whereToCutMap,
-  type CalibrationSummary,
   type CutEffectMap,
-  type LotPrior,
-  type SessionFile,
 } from '../../src/index.ts';
-
-/** Calibrations of the sessions analysed lately, by fingerprint: a drag re-uses its bar's calibration. */
-const calibrations = new Map<string, CalibrationSummary>();
-const keptCalibrations = 8;
-
-/** The calibration summary of a session (calibrated once, then remembered). */
-function summaryOf(session: SessionFile, lot: LotPrior | null | undefined): CalibrationSummary {
-  const key = stableHash([session, lot ?? null]);
-  const known = calibrations.get(key);
-  if (known) return known;
-  const log = parseSessionFile(session, 'session');
-  const summary = calibrationSummary(calibrateSession(log, { lot: lot ?? null }), log);
-  calibrations.set(key, summary);
-  if (calibrations.size > keptCalibrations) calibrations.delete(calibrations.keys().next().value!);
-  return summary;
-}
 
 /** Progress of next-cut advice in percent: calibration is the first 40 %, planning the rest. */
 function nextCutPercent(stage: string, fraction: number): number {
@@ -55,21 +35,13 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
   analyze(payload) {
     const calibration = payload.session && payload.session.steps.length > 0 ? summaryOf(payload.session, payload.lot) : null;
     const options = { modes: payload.modes, shapes: payload.withShapes };
-    const analysis = calibration ? calibratedAnalysis(payload.bar, calibration, options) : analyzeBar(payload.bar, options);
+    const analysis = calibration ? calibratedAnalysis(payload.bar, calibration, options) : analyzeLineBar(payload.bar, options);
     let sensitivities: CutEffectMap | null = null;
     if (payload.withSensitivities && payload.bar.section.shape === 'rect') {
       const bar = calibration ? { ...correctedBar(payload.bar, calibration), material: calibratedMaterial(payload.bar.material, calibration) } : payload.bar;
       sensitivities = whereToCutMap(bar, { partials: Math.min(3, payload.modes) });
     }
     return { analysis, sensitivities, calibration };
-  },
-
-  /** One bar on the solid model (about a second; its own worker, so a cancel stops only it). */
-  solidModes(payload, job) {
-    job.progress(0, 1);
-    const calibration = payload.session && payload.session.steps.length > 0 ? summaryOf(payload.session, payload.lot) : null;
-    const bar = calibration ? { ...correctedBar(payload.bar, calibration), material: calibratedMaterial(payload.bar.material, calibration) } : payload.bar;
-    return { analysis: analyzeBar(bar, { theory: 'solid', modes: payload.modes, shapes: true }), calibration };
   },
 
   /** Many bars, one at a time, yielding between bars so a cancel can arrive. */
@@ -79,7 +51,7 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
       await job.checkpoint();
       job.progress(index, payload.bars.length);
       try {
-        results.push({ id: entry.id, analysis: analyzeBar(entry.bar, { modes: payload.modes }), error: null });
+        results.push({ id: entry.id, analysis: analyzeLineBar(entry.bar, { modes: payload.modes }), error: null });
       } catch (error) {
         results.push({ id: entry.id, analysis: null, error: error instanceof Error ? error.message : String(error) });
       }

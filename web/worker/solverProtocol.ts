@@ -93,9 +93,13 @@ export interface AnalyzeManyEntry {
 export type SolverJobs = {
   analyze: { payload: AnalyzePayload; result: AnalyzeResult };
   analyzeMany: { payload: AnalyzeManyPayload; result: AnalyzeManyEntry[] };
-  solidModes: { payload: SolidModesPayload; result: SolidModesResult };
   design: { payload: DesignPayload; result: DesignResult };
   nextCut: { payload: NextCutPayload; result: NextCutAdvice };
   resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };
   chimeSet: { payload: ChimeSetPayload; result: { plan: ChimeSetPlan; csv: string } };
+};
+
+/** The 3D model's job catalog: its own worker module, so the solver worker never loads the solid model. */
+export type SolidJobs = {
+  solidModes: { payload: SolidModesPayload; result: SolidModesResult };
 };

@@ -28,7 +28,7 @@ export const modesCommand: Command = {
     // Once the bar has measurements, its session's calibrated model predicts its partials (one truth with next-cut).
     const calibrated = values.session === undefined ? null : await sessionSummary(values.session, values.lots, io);
     if (calibrated && theory !== 'timoshenko') throw new InputError('command line', '--theory', 'a session calibrates the timoshenko model: leave --theory out with --session');
-    const analysis = calibrated ? calibratedAnalysis(bar, calibrated.summary, { modes, theory, shapes: values.shapes ?? false }) : analyzeBar(bar, { modes, theory, shapes: values.shapes ?? false });
+    const analysis = calibrated ? calibratedAnalysis(bar, calibrated.summary, { modes, theory: 'timoshenko', shapes: values.shapes ?? false }) : analyzeBar(bar, { modes, theory, shapes: values.shapes ?? false });
     if (values.json) {
       io.stdout(toJson(analysis));
       return 0;
