@@ -14,7 +14,7 @@ export interface StoredKeyboardBar extends KeyboardBarResult {
  * and resonator (describePlannedBar). A plan never keeps a blank it chose that cannot be cut to
  * its note: when the design misses, the designer's remedies for the blank (its length, then its
  * thickness, each checked by designing again) give the blank the plan uses instead, and the bar
- * says so. Pure and synchronous: the unit of work of a batch, safe to run in any worker (Node
+ * says so. A blank the keyboard file gives (one already cut) is kept as it is. Pure and synchronous: the unit of work of a batch, safe to run in any worker (Node
  * worker thread or web worker).
  */
 export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
@@ -26,10 +26,12 @@ export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
     limits_given_by: 'the keyboard file',
     remedy_kinds: ['blank_length_mm', 'blank_thickness_mm'],
     remedy_first_only: true,
+    // A blank the keyboard file gives (one already cut) is the bar: nothing to choose again.
+    ...(job.blank_given ? { remedies: false } : {}),
   };
   let design: DesignResult = designBar(job.blank, request, {}, source);
   const notes: string[] = job.schedule_note ? [job.schedule_note] : [];
-  if (!design.feasible && design.remedies?.length) {
+  if (!design.feasible && !job.blank_given && design.remedies?.length) {
     const remedy = design.remedies.find((r) => r.kind === 'blank_length_mm') ?? design.remedies.find((r) => r.kind === 'blank_thickness_mm');
     if (remedy) {
       const changed = applyRemedy(job.blank, request, remedy);

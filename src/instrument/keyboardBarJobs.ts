@@ -28,6 +28,8 @@ export interface KeyboardBarJob {
   resonator?: { inner_diameter_mm: number; air_temperature_c: number; open_end: 'unflanged' | 'flanged' };
   /** The blank schedule's flag for this note, carried into the result. */
   schedule_note?: string;
+  /** The blank's length was given in the keyboard file (a blank already cut): the plan never changes it. */
+  blank_given?: boolean;
 }
 
 /**
@@ -58,6 +60,7 @@ export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote
         ? { resonator: { inner_diameter_mm: note.resonator_inner_diameter_mm, air_temperature_c: file.resonators.air_temperature_c, open_end: file.resonators.open_end } }
         : {}),
       ...(blank.reason ? { schedule_note: blank.reason } : {}),
+      ...(blank.fixed ? { blank_given: true } : {}),
     };
     return { key: note.name, fingerprint: stableHash(inputs), note: note.name, midi: note.midi, index: note.index, ...inputs };
   });

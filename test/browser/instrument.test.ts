@@ -187,8 +187,9 @@ describe('the whole instrument in the workbench', () => {
     expect(pages).toBe(12);
     const widthsPt = [...pdf.matchAll(/\/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]/g)].map((m) => Number(m[1]));
     expect(widthsPt).toHaveLength(12);
-    const firstSvgMm = Number(/^([\d.]+)mm$/.exec((await sheets.nth(0).locator('svg').getAttribute('width'))!)![1]);
-    expect(Math.max(...widthsPt) / ptPerMm).toBeCloseTo(firstSvgMm + 16, 0);
+    // The widest page holds the widest template (not always the lowest note's: a plan may lengthen a blank it chose).
+    const svgWidthsMm = await sheets.locator('svg').evaluateAll((svgs) => svgs.map((svg) => Number(/^([\d.]+)mm$/.exec(svg.getAttribute('width') ?? '')?.[1])));
+    expect(Math.max(...widthsPt) / ptPerMm).toBeCloseTo(Math.max(...svgWidthsMm) + 16, 0);
     await page.emulateMedia({ media: 'print' });
     await page.screenshot({ path: artifactPath('plan-print-media.png'), fullPage: true });
     await page.emulateMedia({ media: 'screen' });
