@@ -159,10 +159,21 @@ export class BwShapeView extends LitElement {
     }
   }
 
-  /** What the bar's predictions are calibrated with (its rounds and lot), or null before the first round. */
+  /** The last calibration inputs built, with the project and bar they were built from. */
+  private calibrationMemo: { project: ProjectFile | null; barId: string; inputs: ReturnType<typeof barCalibrationInputs> } | null = null;
+
+  /**
+   * What the bar's predictions are calibrated with (its rounds and lot), or null before the first
+   * round. Built once per project revision and bar: a drag asks for it every frame, and the same
+   * object keeps the 3D check from re-rendering.
+   */
   private calibrationInputs() {
+    const memo = this.calibrationMemo;
+    if (memo && memo.project === this.project && memo.barId === this.barId) return memo.inputs;
     const bar = this.bar;
-    return bar && this.project ? barCalibrationInputs(this.project, bar) : null;
+    const inputs = bar && this.project ? barCalibrationInputs(this.project, bar) : null;
+    this.calibrationMemo = { project: this.project, barId: this.barId, inputs };
+    return inputs;
   }
 
   /** Fingerprint of a shape's analysis: the shape and, once the bar has rounds, what calibrates it. */

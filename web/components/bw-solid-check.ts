@@ -77,15 +77,18 @@ export class BwSolidCheck extends LitElement {
 
   private readonly solid = new TaskController<SolidModesResult>(this, {});
 
-  private keyOf(bar: BarFile): string {
-    return stableHash({ bar, partials: this.partials, calibration: this.calibrationInputs });
+  /** Fingerprint of what a check of the bar shown would be asked (kept current in willUpdate, not hashed on every render). */
+  private inputsKey = '';
+
+  protected override willUpdate(changed: Map<string, unknown>): void {
+    if (changed.has('bar') || changed.has('partials') || changed.has('calibrationInputs')) this.inputsKey = this.bar ? stableHash({ bar: this.bar, partials: this.partials, calibration: this.calibrationInputs }) : '';
   }
 
   private run(): void {
     const bar = this.bar;
     if (!bar) return;
     this.chosen = { family: 'bending', mode: 1 };
-    this.solid.run({ subject: this.barId, key: this.keyOf(bar) }, workerJob(solidSolver, 'solidModes', { bar, modes: this.partials, ...this.calibrationInputs }));
+    this.solid.run({ subject: this.barId, key: this.inputsKey }, workerJob(solidSolver, 'solidModes', { bar, modes: this.partials, ...this.calibrationInputs }));
   }
 
   private modesOf(analysis: BarAnalysis): { family: Family; mode: ModeResult }[] {
@@ -112,7 +115,7 @@ export class BwSolidCheck extends LitElement {
     if (bar.section.shape !== 'rect')
       return html`<p class="muted">The 3D model covers rectangular bars; ${bar.section.shape === 'tube' ? 'tubes' : 'rods'} stay on the line model, whose results are above.</p>`;
     const state = this.solid.state(this.barId);
-    const current = state.valueBinding?.key === this.keyOf(bar);
+    const current = state.valueBinding?.key === this.inputsKey;
     const analysis = state.value?.analysis ?? null;
     const calibration = state.value?.calibration ?? null;
     const rows = analysis ? this.modesOf(analysis) : [];
