@@ -3,6 +3,7 @@
 // instrument. Times are passed in (ISO 8601) so the edits stay pure and testable.
 import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
 import { InputError } from '../fileFormats/InputError.ts';
+import { defaultShortenAt } from '../session/index.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
 
 /** Slack (mm) when checking that a shape never adds material to the one before it. */
@@ -189,6 +190,11 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
     const previous = bar.session.steps[bar.session.steps.length - 1];
     const cutSince = previous !== undefined && JSON.stringify(previous.bar) !== JSON.stringify(bar.current);
     if (cutSince) step.cut = { made: bar.expected_hz ? 'as-planned' : 'as-done' };
+    // A shortening since the last round is kept with the round: how much, and at which end.
+    if (step.cut && previous && previous.bar.length_mm - bar.current.length_mm > 1e-6) {
+      step.cut.shortened_mm = Math.round((previous.bar.length_mm - bar.current.length_mm) * 100) / 100;
+      step.cut.shortened_at = bar.session.limits.shorten_at ?? defaultShortenAt(bar.current);
+    }
     // The first round after a cut records when the cut was finished (a re-strike inherits it in the log).
     if (cutSince && bar.cut_finished_at !== undefined && Date.parse(bar.cut_finished_at) <= Date.parse(options.at) && (!previous?.recorded_at || Date.parse(bar.cut_finished_at) >= Date.parse(previous.recorded_at)))
       step.cut_finished_at = bar.cut_finished_at;

@@ -29,7 +29,14 @@ export interface SessionStep {
   /** How the partials were taken: typed in, heard by the microphone, or read from a file. */
   source?: 'typed' | 'microphone' | 'file';
   /** The cut made since the previous step: as advised (`as-planned`) or entered by hand (`as-done`). */
-  cut?: { made: 'as-planned' | 'as-done'; note?: string };
+  cut?: {
+    made: 'as-planned' | 'as-done';
+    note?: string;
+    /** Length taken off since the previous round, mm (a piece tuned by trimming; barwright's addition). */
+    shortened_mm?: number;
+    /** Where it was taken: the free end (a hung chime) or half from each end (a bar on cords). */
+    shortened_at?: 'free-end' | 'both-ends';
+  };
   /** Air temperature when the bar was struck, °C. */
   air_temperature_c?: number;
   /** When the cut before this round was finished (ISO 8601). */
@@ -49,7 +56,15 @@ export interface SessionFile {
   format: 'barwright.session';
   version: 1;
   target: SessionTarget;
-  limits: { min_thickness_mm: number };
+  limits: {
+    min_thickness_mm: number;
+    /** Whether advice may shorten the piece (raises every partial; costs length). Default false; a tube or rod is tuned by length alone. */
+    allow_shortening?: boolean;
+    /** Most length that may be taken off in all, mm (with allow_shortening). */
+    max_shortening_mm?: number;
+    /** Where a shortening is taken: the free end (a hung chime) or half from each end (a bar on cords). Default: free end for a tube or rod, both ends for a bar. */
+    shorten_at?: 'free-end' | 'both-ends';
+  };
   steps: SessionStep[];
 }
 

@@ -28,3 +28,4 @@ export * from './handBias.ts';
 export * from './cutCautions.ts';
 export * from './nextCut.ts';
 export * from './nextCutSolid.ts';
+export * from './lengthTrim.ts';

@@ -20,6 +20,7 @@ import {
   setAdvice,
   setMinimumThickness,
   stableHash,
+  tunedByLength,
   warmBarMinutes,
   type CutInstructions,
   type NextCutResult,
@@ -47,6 +48,8 @@ import './bw-caliper-verdict.ts';
 import './bw-round-conditions.ts';
 import './bw-cautions.ts';
 import './bw-number-field.ts';
+import './bw-length-trim.ts';
+import './bw-shortening-switch.ts';
 
 /** The listening element, when its module is part of this build. */
 const listenModules = import.meta.glob('./bw-listen.ts');
@@ -193,7 +196,7 @@ export class BwTuningView extends LitElement {
     const steps = bar.session.steps.length;
     const adviceKey = `${bar.id}:${steps}:${key}`;
     // Advice is for the bar as last measured: once it has been cut again, the next thing is a round.
-    if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
+    if (steps > 0 && bar.state !== 'done' && !tunedByLength(bar) && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
       this.adviceKey = adviceKey;
       this.requestAdvice(bar);
     }
@@ -318,6 +321,7 @@ export class BwTuningView extends LitElement {
     const project = this.project!;
     const register = registerOf(project, bar);
     const targets = barTargetHz(project, bar);
+    if (tunedByLength(bar)) return html`<bw-length-trim .project=${project} .bar=${bar}></bw-length-trim>`;
     if (bar.session.steps.length === 0) return html`<section class="panel"><h3>Next cut</h3><p class="muted">Record a round first: advice is based on what the bar sounds like.</p></section>`;
     if (bar.state === 'done' && !advice) return html`<section class="panel"><h3>Next cut</h3><p class="advice-status in-tune">● This bar is marked done.</p></section>`;
     if (this.cutSinceLastRound(bar)) {
@@ -391,7 +395,7 @@ export class BwTuningView extends LitElement {
 
   private renderLimit() {
     const bar = this.bar!;
-    return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field></div>`;
+    return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field><bw-shortening-switch .bar=${bar}></bw-shortening-switch></div>`;
   }
 
   private problemText(problem: TaskProblem): string {
