@@ -115,7 +115,7 @@ export function lengthTrim(input: LengthTrimInput): LengthTrim {
       trim_mm: 0,
       length_after_mm: length,
       predicted_hz: measuredHz,
-      advice: `This piece is sharp by ${signed(cents)} cents. Shortening only raises the pitch: lowering it needs a new, longer piece (about ${(-exact).toFixed(1)} mm longer), or a plug or cap at the free end.`,
+      advice: `This piece is sharp by ${Math.abs(cents).toFixed(1)} cents. Shortening only raises the pitch: lowering it needs a new, longer piece (about ${(-exact).toFixed(1)} mm longer), or a plug or cap at the free end.`,
     };
   }
   const aimHz = targetHz * 2 ** (-toleranceCents / 2 / 1200);
@@ -129,7 +129,7 @@ export function lengthTrim(input: LengthTrimInput): LengthTrim {
     trim_mm: trimNow,
     length_after_mm: Math.round(after * 100) / 100,
     predicted_hz: calibrated(after),
-    advice: `This piece is flat by ${signed(cents)} cents: it can only be raised by shortening. Trim ${trimNow.toFixed(1)} mm ${where}${perEnd}; about ${exact.toFixed(1)} mm would reach the target exactly. Cut a little less, strike again: a piece cannot be lengthened.`,
+    advice: `This piece is flat by ${Math.abs(cents).toFixed(1)} cents: it can only be raised by shortening. Trim ${trimNow.toFixed(1)} mm ${where}${perEnd}; about ${exact.toFixed(1)} mm would reach the target exactly. Cut a little less, strike again: a piece cannot be lengthened.`,
   };
 }
 
