@@ -17,3 +17,5 @@ export * from './storePlanInProject.ts';
 export * from './projectSessionContext.ts';
 export * from './projectTemperatureDrift.ts';
 export * from './projectLengthTrim.ts';
+export * from './projectChimeSet.ts';
+export * from './projectChimeSetPieces.ts';

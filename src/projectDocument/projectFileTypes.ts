@@ -5,6 +5,7 @@
 
 import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import type { LotBarRecord } from '../fileFormats/lotFile.ts';
+import type { ChimeSetFile } from '../fileFormats/chimeSetFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
@@ -167,6 +168,11 @@ export interface ProjectFile {
   keyboard_plan?: KeyboardPlanRecord;
   /** What each lot (board or batch) of wood taught, bar by bar, from its finished bars (optional; by lot name). */
   lots?: Record<string, { bars: LotBarRecord[] }>;
+  /**
+   * The chime set (optional): stock, notes and tuned pitch, as a chime-set file (`barwright chime`
+   * reads it as is). Its A4 is the instrument's. Files without it get one from their chime pieces when read.
+   */
+  chime_set?: ChimeSetFile;
 }
 
 /** Current version of the project file format. */

@@ -102,5 +102,43 @@ describe('chimes in the workbench', () => {
     await page.screenshot({ path: artifactPath('chime-done.png'), fullPage: true });
     await context.close();
     expect(problems).toEqual([]);
-  });
+  }, 120_000);
+
+  it('keeps the chime set in the project: D6 added survives a reload, is in the exported file, and its lengths are the chime pieces\' lengths', async () => {
+    const { context, page } = await freshPage();
+    await openView(page, 'chimes');
+    const rows = page.locator('[data-testid="chime-table"] tbody tr');
+    await expect.poll(() => rows.count(), { timeout: 30_000 }).toBe(6);
+    // One computation: the demo's C5 piece is cut at the set's length, and says so.
+    const lengthOf = async (note: string) => Number(await page.locator(`[data-testid="chime-table"] tr[data-note="${note}"] [data-testid="chime-length"]`).innerText());
+    const before = await exportProject(page, 'chimes-before.project.json');
+    const c5Piece = before.bars.find((bar) => bar.id === 'chime-C5')!;
+    expect(await lengthOf('C5')).toBe(c5Piece.blank.length_mm);
+    expect(await page.locator('[data-testid="chime-table"] tr[data-note="C5"] [data-testid="chime-piece"]').innerText()).toMatch(/^✓ 533\.6 mm/);
+    expect(await page.locator('[data-testid="chime-table"] tr[data-note="D5"] [data-testid="chime-piece"]').innerText()).toBe('not a piece yet');
+    // Add D6 to the set; it is saved with the project.
+    const notes = page.getByLabel(/^Notes/);
+    await notes.fill('C5 D5 E5 G5 A5 C6 D6');
+    await notes.press('Enter');
+    await expect.poll(() => rows.count(), { timeout: 30_000 }).toBe(7);
+    await saved(page);
+    await page.reload();
+    await saved(page);
+    await expect.poll(() => rows.count(), { timeout: 30_000 }).toBe(7);
+    expect(await page.getByLabel(/^Notes/).inputValue()).toBe('C5 D5 E5 G5 A5 C6 D6');
+    const d6Length = await lengthOf('D6');
+    const exported = await exportProject(page, 'chimes-with-d6.project.json');
+    expect(exported.chime_set?.notes).toEqual(['C5', 'D5', 'E5', 'G5', 'A5', 'C6', 'D6']);
+    // The notes without a piece become pieces to tune, cut at the set's lengths.
+    await page.locator('[data-testid="add-chime-pieces"]').click();
+    await saved(page);
+    await expect.poll(() => page.locator('[data-testid="chime-table"] tr[data-note="D6"] [data-testid="chime-piece"]').innerText()).toMatch(/^✓ /);
+    const after = await exportProject(page, 'chimes-with-pieces.project.json');
+    const d6 = after.bars.find((bar) => bar.register === 'chimes' && bar.note === 'D6')!;
+    expect(d6.blank.length_mm).toBe(d6Length);
+    expect(after.bars.filter((bar) => bar.register === 'chimes').map((bar) => bar.note)).toEqual(['C5', 'D5', 'E5', 'G5', 'A5', 'C6', 'D6']);
+    await page.screenshot({ path: artifactPath('chime-set-with-pieces.png'), fullPage: true });
+    await context.close();
+    expect(problems).toEqual([]);
+  }, 120_000);
 });

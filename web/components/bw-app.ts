@@ -372,7 +372,7 @@ export class BwApp extends LitElement {
       case 'template':
         return html`<bw-template-view .project=${project} bar-id=${barId}></bw-template-view>`;
       case 'chimes':
-        return html`<bw-chime-view></bw-chime-view>`;
+        return html`<bw-chime-view .project=${project}></bw-chime-view>`;
       case 'plan-print':
         return html`<bw-plan-print-view .project=${project}></bw-plan-print-view>`;
     }

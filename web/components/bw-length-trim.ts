@@ -6,6 +6,8 @@ import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import {
   barLengthTrimInput,
+  barLot,
+  recordLotLearning,
   barMaterialFamily,
   barShortenAt,
   recordShortening,
@@ -96,6 +98,21 @@ export class BwLengthTrim extends LitElement {
     this.error = outcome.ok ? '' : outcome.error.message;
   }
 
+  /**
+   * The piece is in tune: marked done. A piece cut from a named lot teaches it what its rounds
+   * learnt (the done verdict of the session's next-cut advice carries it), as a bar does.
+   */
+  private markDone(): void {
+    const bar = this.bar!;
+    const at = new Date().toISOString();
+    const lot = barLot(bar);
+    const record = bar.advice?.status === 'done' && bar.advice.from_steps === bar.session.steps.length ? bar.advice.lot_record : undefined;
+    this.edit((project) => {
+      const marked = setBarState(project, bar.id, 'done', at);
+      return lot && record ? recordLotLearning(marked, lot, { ...record, learnt_at: at }) : marked;
+    });
+  }
+
   private recordTrim(): void {
     const bar = this.bar!;
     const value = this.trimmed ?? this.advice.state(bar.id).value?.trim_mm ?? null;
@@ -143,7 +160,9 @@ export class BwLengthTrim extends LitElement {
       ${heading}
       ${advice.status === 'in-tune'
         ? html`<p class="advice-status in-tune">● In tune: the fundamental is within tolerance. No trim needed.</p>
-            <button class="primary" data-testid="mark-piece-done" @click=${() => this.edit((next) => setBarState(next, bar.id, 'done', new Date().toISOString()))}>Mark the piece done</button>`
+            ${barLot(bar) && !(bar.advice?.status === 'done' && bar.advice.from_steps === bar.session.steps.length)
+              ? html`<p role="status">Working out what this piece teaches its lot…</p>`
+              : html`<button class="primary" data-testid="mark-piece-done" @click=${this.markDone}>Mark the piece done</button>`}`
         : advice.status === 'sharp'
           ? html`<p class="advice-status problem">▲ Sharp: trimming cannot lower it.</p><p data-testid="trim-advice">${advice.advice}</p>`
           : html`<p class="advice-status">▼ Flat: raise it by trimming.</p>

@@ -196,7 +196,7 @@ export class BwTuningView extends LitElement {
     const steps = bar.session.steps.length;
     const adviceKey = `${bar.id}:${steps}:${key}`;
     // Advice is for the bar as last measured: once it has been cut again, the next thing is a round.
-    if (steps > 0 && bar.state !== 'done' && !tunedByLength(bar) && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
+    if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
       this.adviceKey = adviceKey;
       this.requestAdvice(bar);
     }
