@@ -19,3 +19,4 @@ export * from './projectTemperatureDrift.ts';
 export * from './projectLengthTrim.ts';
 export * from './projectChimeSet.ts';
 export * from './projectChimeSetPieces.ts';
+export * from './projectWorkshop.ts';

@@ -7,6 +7,7 @@ import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import type { LotBarRecord } from '../fileFormats/lotFile.ts';
 import type { ChimeSetFile } from '../fileFormats/chimeSetFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
+import type { Workshop } from '../fileFormats/workshopFile.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
 export interface SessionTarget {
@@ -173,6 +174,12 @@ export interface ProjectFile {
    * reads it as is). Its A4 is the instrument's. Files without it get one from their chime pieces when read.
    */
   chime_set?: ChimeSetFile;
+  /**
+   * The workshop the bars are cut in: its tools set the designer's limits for every bar and plan
+   * of the project (the same section as a keyboard file's `workshop`). Absent: barwright's default
+   * workshop.
+   */
+  workshop?: Workshop;
 }
 
 /** Current version of the project file format. */
