@@ -100,7 +100,8 @@ describe('chimes in the workbench', () => {
     expect(e5.session.steps[1]?.cut).toEqual({ made: 'as-done', shortened_mm: trimMm, shortened_at: 'free-end' });
     expect(e5.session.steps[0]!.bar.length_mm - e5.session.steps[1]!.bar.length_mm).toBeCloseTo(trimMm, 6);
     await page.screenshot({ path: artifactPath('chime-done.png'), fullPage: true });
-    // The where-to-cut map is not offered for a tube (its only cut is length, so the map would say nothing a maker can use): a note instead, no computation.
+    // The where-to-cut map is not offered for a tube (its only cut is length, so the map would say nothing a maker can use): a note
+    // instead of "Working out the map…" waiting for a map the worker never makes for a tube.
     await page.evaluate(() => (location.hash = '#/shape/chime-G5'));
     await page.locator('[data-testid="cut-map-length-only"]').waitFor({ timeout: 15_000 });
     expect(await page.locator('bw-cut-map canvas').count()).toBe(0);

@@ -26,7 +26,7 @@ export class BwCutMap extends LitElement {
   ];
 
   @property({ attribute: false }) sensitivities: CutEffectMap | null = null;
-  /** False for sections that are not undercut (tubes, rods): a short note instead of the map. */
+  /** False for sections that are not undercut (tubes, rods): a short note instead of the map. Bind it as a property (`.applicable`): the attribute's absence leaves the default. */
   @property({ type: Boolean }) applicable = true;
   /** Bar length, mm (the x axis ends there). */
   @property({ type: Number, attribute: 'length' }) lengthMm: number | null = null;

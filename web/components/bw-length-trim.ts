@@ -65,8 +65,14 @@ export class BwLengthTrim extends LitElement {
       .where label {
         display: inline-flex;
         align-items: center;
-        gap: 0.3rem;
-        min-height: 44px;
+        gap: 0.5rem;
+        min-height: var(--bw-touch);
+      }
+      .where input {
+        width: var(--bw-touch);
+        height: var(--bw-touch);
+        margin: 0;
+        accent-color: var(--bw-action);
       }
     `,
   ];

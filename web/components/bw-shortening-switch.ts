@@ -19,12 +19,14 @@ export class BwShorteningSwitch extends LitElement {
       label {
         display: inline-flex;
         align-items: center;
-        gap: 0.4rem;
-        min-height: 44px;
+        gap: 0.5rem;
+        min-height: var(--bw-touch);
       }
       input {
-        width: 1.4rem;
-        height: 1.4rem;
+        width: var(--bw-touch);
+        height: var(--bw-touch);
+        margin: 0;
+        accent-color: var(--bw-action);
       }
     `,
   ];
