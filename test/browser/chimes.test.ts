@@ -85,6 +85,11 @@ describe('chimes in the workbench', () => {
     expect(trimMm).toBeLessThan(1.05 * closedForm);
     expect(await page.locator('[data-testid="trim-advice"]').innerText()).toMatch(/flat .* it can only be raised by shortening/);
     await page.screenshot({ path: artifactPath('chime-trim-advice.png'), fullPage: true });
+    // At tablet size too, without sideways scrolling.
+    await page.setViewportSize({ width: 768, height: 1024 });
+    await page.screenshot({ path: artifactPath('chime-trim-advice-tablet.png'), fullPage: true });
+    expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
+    await page.setViewportSize({ width: 1280, height: 800 });
     // The maker trims what was advised and records it.
     await page.locator('[data-testid="record-trim"]').click();
     await page.locator('[data-testid="strike-now"]').filter({ hasText: `Trimmed ${trimMm.toFixed(2)} mm` }).waitFor();
@@ -105,6 +110,21 @@ describe('chimes in the workbench', () => {
     await page.evaluate(() => (location.hash = '#/shape/chime-G5'));
     await page.locator('[data-testid="cut-map-length-only"]').waitFor({ timeout: 15_000 });
     expect(await page.locator('bw-cut-map canvas').count()).toBe(0);
+    await context.close();
+    expect(problems).toEqual([]);
+  }, 120_000);
+
+  it('shows a switch beside an undercut bar\'s advice that lets it shorten the bar, kept in the session\'s limits', async () => {
+    const { context, page } = await freshPage();
+    await openView(page, 'tuning/bar-A2');
+    const toggle = page.locator('[data-testid="allow-shortening"]');
+    await toggle.waitFor({ timeout: 30_000 });
+    expect(await toggle.isChecked()).toBe(false);
+    expect(await page.getByText('Thinnest allowed').count()).toBeGreaterThan(0);
+    await toggle.check();
+    await saved(page);
+    const a2 = (await exportProject(page, 'shortening-switch.project.json')) as unknown as { bars: { id: string; session: { limits: { allow_shortening?: boolean } } }[] };
+    expect(a2.bars.find((bar) => bar.id === 'bar-A2')!.session.limits.allow_shortening).toBe(true);
     await context.close();
     expect(problems).toEqual([]);
   }, 120_000);
