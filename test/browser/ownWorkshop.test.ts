@@ -362,10 +362,10 @@ describe('words', () => {
  */
 const views: { hash: string; name: string; ready: (page: Page) => Promise<unknown>; show?: (page: Page) => Promise<unknown> }[] = [
   { hash: 'keyboard', name: 'keyboard', ready: (page) => expect.poll(() => page.locator('[data-testid="bar-list"]').innerText(), { timeout: 90_000 }).not.toMatch(/predicting/) },
-  { hash: 'keyboard', name: 'plan', ready: (page) => page.locator('[data-testid="plan-start"]').waitFor(), show: (page) => page.locator('bw-keyboard-plan').scrollIntoViewIfNeeded() },
+  { hash: 'keyboard', name: 'plan', ready: (page) => page.locator('[data-testid="plan-start"]').waitFor(), show: (page) => page.locator('bw-keyboard-plan').evaluate((element) => element.scrollIntoView({ block: 'center' })) },
   { hash: 'shape/bar-A2', name: 'shape', ready: (page) => expect.poll(() => page.locator('[data-testid="predicted-partials"] bw-cents-readout .detail').first().innerText(), { timeout: 60_000 }).toMatch(/^\d/) },
   { hash: 'tuning/bar-A2', name: 'tuning', ready: (page) => page.locator('[data-testid="mark-cut-done"]').waitFor({ timeout: 120_000 }) },
-  { hash: 'tuning/bar-A2', name: 'listen', ready: (page) => page.locator('bw-listen').waitFor({ timeout: 60_000 }), show: (page) => page.locator('bw-listen').scrollIntoViewIfNeeded() },
+  { hash: 'tuning/bar-A2', name: 'listen', ready: (page) => page.locator('bw-listen').waitFor({ timeout: 60_000 }), show: (page) => page.locator('bw-listen').evaluate((element) => element.scrollIntoView({ block: 'center' })) },
   { hash: 'resonators', name: 'resonators', ready: (page) => page.locator('[data-testid="resonators"]').waitFor() },
   { hash: 'template/bar-C4', name: 'template', ready: (page) => page.locator('[data-testid="template-tile"]').first().waitFor() },
   { hash: 'chimes', name: 'chimes', ready: (page) => page.locator('[data-testid="chime-table"]').waitFor({ timeout: 60_000 }) },

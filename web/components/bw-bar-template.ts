@@ -73,7 +73,8 @@ export class BwBarTemplate extends LitElement {
         .table-part h3 {
           height: 6mm;
           margin: 0;
-          font-size: 11pt;
+          font-size: 10pt;
+          white-space: nowrap;
           line-height: 6mm;
           overflow: hidden;
         }
@@ -149,7 +150,10 @@ export class BwBarTemplate extends LitElement {
       <g clip-path=${`url(#${clipId})`}>
         ${profile.length ? svg`<rect x=${x(0)} y=${top} width=${bar.length_mm} height=${depth} fill="none" stroke="#666666" stroke-width="0.25" stroke-dasharray="2 1.5"></rect>` : nothing}
         <polygon points=${piece} fill=${rect ? '#f1e6cf' : '#dde0e4'} stroke=${ink} stroke-width="0.35"></polygon>
-        ${holes.map((hole) => svg`<line x1=${x(hole)} y1=${top - 2} x2=${x(hole)} y2=${bottom + 2} stroke=${ink} stroke-width="0.3" stroke-dasharray="1.5 1"></line><circle cx=${x(hole)} cy=${top + depth / 2} r=${rect ? (bar.holes?.find((drilled) => drilled.x_mm === hole)?.diameter_mm ?? 3) / 2 : 1.5} fill="#ffffff" stroke=${ink} stroke-width="0.3"></circle>`)}
+        ${holes.map((hole) => {
+          const radius = rect ? (bar.holes?.find((drilled) => drilled.x_mm === hole)?.diameter_mm ?? 3) / 2 : 1.5;
+          return svg`<line x1=${x(hole)} y1=${top - 2} x2=${x(hole)} y2=${bottom + 2} stroke=${ink} stroke-width="0.3" stroke-dasharray="1.5 1"></line><circle cx=${x(hole)} cy=${top + depth / 2} r=${radius} fill="#ffffff" stroke=${ink} stroke-width="0.3"></circle><text x=${x(hole) + radius + 0.8} y=${top + depth / 2 - radius + 0.4} font-size="3" data-testid="hole-figure">${formatMm(hole)}</text>`;
+        })}
       </g>
       ${figures.map(
         ([position, t]) =>

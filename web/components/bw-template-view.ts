@@ -87,7 +87,7 @@ export class BwTemplateView extends LitElement {
     const table = shape.section.shape === 'rect' && shape.profile_mm ? cutInstructions(from, shape) : null;
     const what = this.which === 'advice' ? 'after the advised cut' : this.which === 'design' ? 'planned undercut' : 'as it is now';
     const heading = `${bar.note}${shape.label && shape.label !== bar.note ? ` · ${shape.label}` : ''} · ${what} · ${formatMm(shape.length_mm)} mm long`;
-    const tableHeading = `${bar.note}: stations in mm from the left end${nodes.length && shape.section.shape === 'rect' ? `, cord holes at ${nodes.map((node) => formatMm(node)).join(' and ')} mm` : ''} · ${this.which === 'advice' ? '“now” is the bar as it is, take off the difference' : '“now” is the uncut blank'}`;
+    const tableHeading = `${bar.note}: stations, mm from the left end${nodes.length && shape.section.shape === 'rect' ? ` · cord holes ${nodes.map((node) => formatMm(node)).join(' and ')}` : ''} · ${this.which === 'advice' ? '“now” = the bar as it is' : '“now” = the uncut blank'}`;
     const paper = templatePapers[this.paper];
     return html`<div class="controls">
         <bw-bar-picker .bars=${project.bars} bar-id=${bar.id}></bw-bar-picker>
