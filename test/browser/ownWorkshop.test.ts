@@ -6,7 +6,7 @@
 // holes on tubes. The layout test (tablet 768 × 1024 and laptop 1280 × 800: a one-line header at
 // tablet size, no sideways scroll on any view, every table fitting or scrolling inside itself)
 // saves a screenshot of each view at both sizes into test/artifacts/ (keyboard, its plan panel,
-// shape, tuning, listening, resonators, template, chimes, the plan's templates, project menu).
+// shape, tuning, listening, resonators, template, chimes, workshop, the plan's templates, project menu).
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
