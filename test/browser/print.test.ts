@@ -9,7 +9,7 @@ import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
-import { cutInstructions, parseProjectFile, templatePages, templatePapers, type TemplatePaper } from '../../src/index.ts';
+import { cutInstructions, parseBarFile, parseProjectFile, templatePages, templatePapers, type BarFile, type TemplatePaper } from '../../src/index.ts';
 import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
 import { readPdfPages, scaleBarLengthsMm } from './pdfPages.ts';
 
@@ -142,6 +142,44 @@ describe('paper that prints right', () => {
       await context.close();
     }, 120_000);
   }
+
+  it('the station table goes under a short bar\'s drawing when it fits (one page), else onto pages of its own, as the paper plan says', async () => {
+    const { context, page } = await openFreshPage(browser, problems);
+    await openTemplate(page, 'bar-C7');
+    // The element on its own: the C7 blank (175 × 40 × 19 mm) with an invented arch, 19 mm at the
+    // ends and 13 mm in the middle (test data for the layout, not a tuned shape), stations every
+    // `step` mm: every 10 mm gives 12 rows where wood comes off (under the drawing), every 2.5 mm 47 (41 + 6 on two pages of their own).
+    const blank = parseBarFile(JSON.parse(readFileSync('fixtures/c7-blank.bar.json', 'utf8')), 'c7-blank.bar.json');
+    for (const step of [10, 2.5]) {
+      const profile: [number, number][] = [];
+      const arch = (position: number) => 19 - 6 * Math.max(0, 1 - ((position - 87.5) / 60) ** 2);
+      for (let position = 0; position < blank.length_mm - 1e-9; position += step) profile.push([position, arch(position)]);
+      profile.push([blank.length_mm, arch(blank.length_mm)]);
+      const arched: BarFile = { ...blank, profile_mm: profile };
+      const table = cutInstructions(blank, arched);
+      const layout = templatePages({ length_mm: blank.length_mm, depth_mm: 19, paper: 'a4', table_rows: table.stations.length });
+      expect(layout.table_under_drawing).toBe(step === 10);
+      await page.evaluate(
+        ({ bar, cut }) => {
+          document.querySelector('bw-app')?.remove();
+          document.querySelector('bw-bar-template[data-test]')?.remove();
+          const element = document.createElement('bw-bar-template');
+          element.dataset.test = 'alone';
+          Object.assign(element, { bar, table: cut, nodesMm: [39.4, 135.6], heading: 'C7 · test arch', tableHeading: 'C7: stations', paper: 'a4', final: true });
+          document.body.append(element);
+        },
+        { bar: arched, cut: table },
+      );
+      await expect.poll(() => page.locator('bw-bar-template[data-test] bw-station-table tbody tr').count()).toBe(table.stations.length);
+      const pages = await printPdf(page);
+      await page.screenshot({ path: artifactPath(`print-table-every-${step}mm.png`), fullPage: true });
+      await page.emulateMedia({ media: 'screen' });
+      expect(pages, `stations every ${step} mm: ${table.stations.length} rows`).toHaveLength(layout.pages);
+      for (const [index, printed] of pages.entries()) expect(scaleBarLengthsMm(printed).map((length) => Math.round(length)), `page ${index + 1}`).toEqual([100]);
+      console.log(`stations every ${step} mm: ${table.stations.length} rows, ${pages.length} page(s), table rows per page ${layout.table_rows.join(', ')}${layout.table_under_drawing ? ' (under the drawing)' : ''}`);
+    }
+    await context.close();
+  }, 120_000);
 
   it('remembers the paper chosen through a reload', async () => {
     const { context, page } = await openFreshPage(browser, problems);
