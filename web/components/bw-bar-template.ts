@@ -133,6 +133,8 @@ export class BwBarTemplate extends LitElement {
     const holesHere = holes.filter((hole) => hole >= from && hole <= to);
     const previous = tile.page > 1 ? from + layout.overlap_mm / 2 : null;
     const next = tile.page < layout.tiles.length ? to - layout.overlap_mm / 2 : null;
+    // Ruler figures give way to the ⊕ marks of a join.
+    const joins = [previous, next].filter((join): join is number => join !== null);
     const target = (at: number, y: number) => svg`<circle cx=${x(at)} cy=${y} r="2.5" fill="none" stroke=${ink} stroke-width="0.3"></circle><line x1=${x(at) - 3.5} y1=${y} x2=${x(at) + 3.5} y2=${y} stroke=${ink} stroke-width="0.3"></line><line x1=${x(at)} y1=${y - 3.5} x2=${x(at)} y2=${y + 3.5} stroke=${ink} stroke-width="0.3"></line>`;
     const scaleTop = bottom + 25;
     const legend = rect
@@ -145,7 +147,7 @@ export class BwBarTemplate extends LitElement {
       <defs><clipPath id=${clipId}><rect x=${x(from)} y="0" width=${to - from} height=${height}></rect></clipPath></defs>
       <text x=${edge} y="5" font-size="4.2" font-weight="700">${this.heading} · page ${tile.page} of ${pages}</text>
       <text x=${edge} y="10" font-size="3">${layout.tiles.length > 1 ? `This sheet: ${formatMm(from, 0)}–${formatMm(to, 0)} mm from the left end; sheets overlap ${formatMm(layout.overlap_mm, 0)} mm. ` : ''}1:1 — print at 100 % (no “fit to page”), check the 100 mm bar.</text>
-      ${ticks.map((mark) => svg`<line x1=${x(mark)} y1=${top - (mark % 50 === 0 ? 5 : 2.5)} x2=${x(mark)} y2=${top} stroke=${ink} stroke-width="0.25"></line>${mark % 50 === 0 ? svg`<text x=${x(mark)} y=${top - 6} font-size="3" text-anchor="middle">${mark}</text>` : nothing}`)}
+      ${ticks.map((mark) => svg`<line x1=${x(mark)} y1=${top - (mark % 50 === 0 ? 5 : 2.5)} x2=${x(mark)} y2=${top} stroke=${ink} stroke-width="0.25"></line>${mark % 50 === 0 && !joins.some((join) => Math.abs(join - mark) < 6) ? svg`<text x=${x(mark)} y=${top - 6} font-size="3" text-anchor="middle">${mark}</text>` : nothing}`)}
       ${previous !== null ? svg`<rect x=${x(from)} y=${top - 12} width=${previous - from} height=${depth + 26} fill="#e4e4e4" data-testid="trim-strip"></rect>` : nothing}
       <g clip-path=${`url(#${clipId})`}>
         ${profile.length ? svg`<rect x=${x(0)} y=${top} width=${bar.length_mm} height=${depth} fill="none" stroke="#666666" stroke-width="0.25" stroke-dasharray="2 1.5"></rect>` : nothing}
