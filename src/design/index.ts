@@ -8,3 +8,4 @@ export * from './stationTable.ts';
 export * from './profileTemplateSvg.ts';
 export * from './workshopLimits.ts';
 export * from './designBarSolid.ts';
+export * from './templatePages.ts';

@@ -1,14 +1,16 @@
 // The whole instrument in the workbench, in real Chromium: a small keyboard range planned on the
 // worker pool through the UI with progress, cancelled mid-way and resumed without redoing the
 // bars already planned, kept through reloads, its cut list downloaded and parsed; the print view
-// with one page per planned bar at true scale; the chime set page checked against the library's
+// in the single bar's template style on A4, tiled where a bar is longer than a sheet, its PDF
+// pages and scale bars measured; the chime set page checked against the library's
 // chimeForNote run here in Node for the same stock and note.
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
-import { chimeForNote, keyboardCutListColumns, noteToHz } from '../../src/index.ts';
+import { chimeForNote, keyboardCutListColumns, noteToHz, templatePages } from '../../src/index.ts';
 import { artifactPath, auditControls as auditPageControls, freshPage as openFreshPage, launchBrowser, parseCsv, startWorkbench } from './harness.ts';
+import { readPdfPages, scaleBarLengthsMm } from './pdfPages.ts';
 
 let server: ViteDevServer;
 let baseUrl: string;
@@ -17,8 +19,6 @@ const problems: string[] = [];
 
 /** CSS px per mm at the CSS reference of 96 px per inch. */
 const pxPerMm = 96 / 25.4;
-/** PDF points per mm (72 per inch). */
-const ptPerMm = 72 / 25.4;
 
 beforeAll(async () => {
   ({ server, url: baseUrl } = await startWorkbench());
@@ -157,41 +157,64 @@ describe('the whole instrument in the workbench', () => {
     // On screen, the first row shows the same blank as the CSV.
     expect(await page.locator('[data-testid="plan-table"] tr[data-note="C4"]').innerText()).toMatch(/328 × 52 × 21/);
 
-    // The print view: one sheet per planned bar, each SVG at true scale in mm.
+    // The print view: every planned bar in the single bar's template style (bw-bar-template), on A4
+    // as chosen by default, each bar starting a new sheet, tiled where the paper plan says.
     await page.getByRole('button', { name: 'Templates of the plan (1:1)…' }).click();
     const sheets = page.locator('[data-testid="print-sheet"]');
     await expect.poll(() => sheets.count()).toBe(12);
+    const layouts = [];
     for (let i = 0; i < 12; i++) {
       const sheet = sheets.nth(i);
+      expect(await sheet.evaluate((element) => element.tagName.toLowerCase())).toBe('bw-bar-template');
+      expect(await sheet.getAttribute('data-note')).toBe(planNotes[i]);
       const blank = Number(await sheet.getAttribute('data-blank-length-mm'));
       expect(blank).toBeCloseTo(Number(body[i]![column('blank_length_mm')]), 1);
-      const svgInfo = await sheet.locator('svg').evaluate((svg) => {
-        const box = svg.getAttribute('viewBox')!.split(/\s+/).map(Number);
-        const outline = svg.querySelector('rect[stroke-dasharray]');
-        return { width: svg.getAttribute('width'), viewBoxWidth: box[2]!, outlineWidth: Number(outline?.getAttribute('width')), px: svg.getBoundingClientRect().width };
+      const drawn = await sheet.evaluate((element) => {
+        const template = element as HTMLElement & { bar: { length_mm: number; section: { thickness_mm: number } } };
+        return { length: template.bar.length_mm, depth: template.bar.section.thickness_mm };
       });
-      const widthMm = Number(/^([\d.]+)mm$/.exec(svgInfo.width!)![1]);
-      // One user unit is one mm, the blank's outline is the blank's length, and the page draws it at 96 px per 25.4 mm.
-      expect(widthMm).toBeCloseTo(svgInfo.viewBoxWidth, 3);
-      expect(svgInfo.outlineWidth).toBeCloseTo(blank, 3);
-      expect(widthMm).toBeGreaterThan(blank);
-      expect(widthMm).toBeLessThan(blank + 60);
-      expect(svgInfo.px).toBeCloseTo(widthMm * pxPerMm, 0);
-      expect(await sheet.innerText()).toContain(planNotes[i]!);
+      const layout = templatePages({ length_mm: drawn.length, depth_mm: drawn.depth, paper: 'a4' });
+      layouts.push(layout);
+      const tiles = sheet.locator('[data-testid="template-tile"]');
+      expect(await tiles.count()).toBe(layout.tiles.length);
+      const tile = await tiles.first().evaluate((svg) => ({ width: svg.getAttribute('width'), viewBoxWidth: Number(svg.getAttribute('viewBox')!.split(/\s+/)[2]), px: svg.getBoundingClientRect().width, outline: Number(svg.querySelector('rect[stroke-dasharray]')?.getAttribute('width')) }));
+      // One user unit is one mm: the tile is the printable width, drawn at 96 px per 25.4 mm; the blank's outline is the planned bar's length.
+      expect(tile.width).toBe(`${layout.printable_width_mm}mm`);
+      expect(tile.viewBoxWidth).toBeCloseTo(layout.printable_width_mm, 6);
+      expect(tile.px).toBeCloseTo(layout.printable_width_mm * pxPerMm, 0);
+      expect(tile.outline).toBeCloseTo(drawn.length, 3);
+      // The same figures as a single bar's template: thickness at the stations, cord holes at the planned nodes.
+      expect(await sheet.locator('[data-testid="thickness-figure"]').count()).toBeGreaterThan(5);
+      expect(await tiles.allTextContents()).toEqual(expect.arrayContaining([expect.stringMatching(/Cord hole at \d+\.\d mm/)]));
     }
     expect(await auditControls(page)).toEqual({ unlabelled: [], small: [] });
     await page.screenshot({ path: artifactPath('plan-print-screen.png'), fullPage: false });
-    // Printed: exactly one page per bar, each page as wide as its template plus the margins.
-    const pdf = (await page.pdf({ preferCSSPageSize: true, printBackground: true })).toString('latin1');
-    const pages = [...pdf.matchAll(/\/Type\s*\/Page[^s]/g)].length;
-    expect(pages).toBe(12);
-    const widthsPt = [...pdf.matchAll(/\/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]/g)].map((m) => Number(m[1]));
-    expect(widthsPt).toHaveLength(12);
-    // The widest page holds the widest template (not always the lowest note's: a plan may lengthen a blank it chose).
-    const svgWidthsMm = await sheets.locator('svg').evaluateAll((svgs) => svgs.map((svg) => Number(/^([\d.]+)mm$/.exec(svg.getAttribute('width') ?? '')?.[1])));
-    expect(Math.max(...widthsPt) / ptPerMm).toBeCloseTo(Math.max(...svgWidthsMm) + 16, 0);
+    // Printed: the pages the paper plan counts, each an A4 sheet turned as its bar needs, each with a 100 mm scale bar.
+    const printed = readPdfPages(await page.pdf({ preferCSSPageSize: true, printBackground: true }));
+    const expected = layouts.flatMap((layout) => layout.tiles.map(() => layout.orientation));
+    expect(printed).toHaveLength(expected.length);
+    for (const [index, sheetPrinted] of printed.entries()) {
+      const [across, down] = expected[index] === 'portrait' ? [210, 297] : [297, 210];
+      expect(Math.abs(sheetPrinted.widthMm - across), `page ${index + 1}`).toBeLessThan(0.5);
+      expect(Math.abs(sheetPrinted.heightMm - down), `page ${index + 1}`).toBeLessThan(0.5);
+      const scaleBars = scaleBarLengthsMm(sheetPrinted);
+      expect(scaleBars, `page ${index + 1}`).toHaveLength(1);
+      expect(Math.abs(scaleBars[0]! - 100), `page ${index + 1}`).toBeLessThan(0.5);
+    }
     await page.emulateMedia({ media: 'print' });
     await page.screenshot({ path: artifactPath('plan-print-media.png'), fullPage: true });
+    await page.emulateMedia({ media: 'screen' });
+    // The print view at tablet and laptop size: nothing scrolls sideways (the sheets scroll inside themselves).
+    for (const [size, viewport] of [
+      ['tablet', { width: 768, height: 1024 }],
+      ['laptop', { width: 1280, height: 800 }],
+    ] as const) {
+      await page.setViewportSize(viewport);
+      await page.waitForTimeout(300);
+      const widths = await page.evaluate(() => ({ scroll: document.scrollingElement!.scrollWidth, client: document.scrollingElement!.clientWidth }));
+      expect(widths.scroll, `plan print at ${size}`).toBeLessThanOrEqual(widths.client);
+      await page.screenshot({ path: artifactPath(`view-plan-print-planned-${size}.png`), fullPage: false });
+    }
     await page.emulateMedia({ media: 'screen' });
     await context.close();
   }, 240_000);
@@ -254,6 +277,19 @@ describe('the whole instrument in the workbench', () => {
     await page.screenshot({ path: artifactPath('chimes-tablet.png'), fullPage: true });
     await context.close();
   }, 120_000);
+
+  it('plans a bar on the 3D model when asked, in the workers, and says so', async () => {
+    const { context, page } = await freshPage();
+    await openView(page, 'keyboard');
+    // D4 has no bar set up: the plan chooses its blank, then designs it on the 3D model.
+    await page.getByLabel('From note').fill('D4');
+    await page.getByLabel('To note').fill('D4');
+    await page.locator('[data-testid="plan-solid"]').check();
+    await page.locator('[data-testid="plan-start"]').click();
+    const summary = page.locator('[data-testid="plan-summary"]');
+    await expect.poll(async () => ((await summary.count()) ? (await summary.innerText()).replace(/\s+/g, ' ') : ''), { timeout: 240_000, interval: 2_000 }).toMatch(/1 of 1 bars planned — 1 in tolerance, .* Designed and checked on the 3D model/);
+    await context.close();
+  }, 300_000);
 
   it('raised no page or console errors', () => {
     expect(problems).toEqual([]);

@@ -5,7 +5,8 @@
 // list as CSV and on paper; labels that name one thing each, no timber notes on metal and no cord
 // holes on tubes. The layout test (tablet 768 × 1024 and laptop 1280 × 800: a one-line header at
 // tablet size, no sideways scroll on any view, every table fitting or scrolling inside itself)
-// saves a screenshot of each view at both sizes into test/artifacts/.
+// saves a screenshot of each view at both sizes into test/artifacts/ (keyboard, its plan panel,
+// shape, tuning, listening, resonators, template, chimes, workshop, the plan's templates, project menu).
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
@@ -355,16 +356,22 @@ describe('words', () => {
   }, 240_000);
 });
 
-/** Every view of the workbench, with what to wait for before it is shown as the maker sees it. */
-const views: { hash: string; name: string; ready: (page: Page) => Promise<unknown> }[] = [
+/**
+ * Every view of the workbench, with what to wait for before it is shown as the maker sees it, and
+ * for a part of a view (listening, the keyboard plan) what to bring into sight for its screenshot.
+ */
+const views: { hash: string; name: string; ready: (page: Page) => Promise<unknown>; show?: (page: Page) => Promise<unknown> }[] = [
   { hash: 'keyboard', name: 'keyboard', ready: (page) => expect.poll(() => page.locator('[data-testid="bar-list"]').innerText(), { timeout: 90_000 }).not.toMatch(/predicting/) },
+  { hash: 'keyboard', name: 'plan', ready: (page) => page.locator('[data-testid="plan-start"]').waitFor(), show: (page) => page.locator('bw-keyboard-plan').evaluate((element) => element.scrollIntoView({ block: 'center' })) },
   { hash: 'shape/bar-A2', name: 'shape', ready: (page) => expect.poll(() => page.locator('[data-testid="predicted-partials"] bw-cents-readout .detail').first().innerText(), { timeout: 60_000 }).toMatch(/^\d/) },
   { hash: 'tuning/bar-A2', name: 'tuning', ready: (page) => page.locator('[data-testid="mark-cut-done"]').waitFor({ timeout: 120_000 }) },
+  { hash: 'tuning/bar-A2', name: 'listen', ready: (page) => page.locator('bw-listen').waitFor({ timeout: 60_000 }), show: (page) => page.locator('bw-listen').evaluate((element) => element.scrollIntoView({ block: 'center' })) },
   { hash: 'resonators', name: 'resonators', ready: (page) => page.locator('[data-testid="resonators"]').waitFor() },
   { hash: 'template/bar-C4', name: 'template', ready: (page) => page.locator('[data-testid="template-tile"]').first().waitFor() },
   { hash: 'chimes', name: 'chimes', ready: (page) => page.locator('[data-testid="chime-table"]').waitFor({ timeout: 60_000 }) },
   { hash: 'workshop', name: 'workshop', ready: (page) => page.locator('[data-testid="workshop-limits"]').waitFor({ timeout: 60_000 }) },
   { hash: 'plan-print', name: 'plan-print', ready: (page) => page.locator('bw-plan-print-view').waitFor() },
+  { hash: 'keyboard', name: 'project-menu', ready: (page) => openMenu(page).then(() => page.locator('[data-testid="new-project"]').waitFor()) },
 ];
 
 /**
@@ -434,6 +441,7 @@ describe('tablet and laptop', () => {
         expect(audit.unlabelled, `${view.name} at ${size}`).toEqual([]);
         expect(audit.small, `${view.name} at ${size}`).toEqual([]);
         await page.evaluate(() => window.scrollTo(0, 0));
+        await view.show?.(page);
         await page.screenshot({ path: artifactPath(`view-${view.name}-${size}.png`), fullPage: true });
         await page.screenshot({ path: artifactPath(`view-${view.name}-${size}-screen.png`) });
       }

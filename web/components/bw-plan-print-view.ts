@@ -1,30 +1,17 @@
-// The print view of a keyboard plan: every planned bar's 1:1 template (the library's SVG, sized
-// in millimetres, with the note, blank size, cord holes and a scale bar), one bar per printed
-// page. Each bar gets a named CSS page (@page) as wide as its template, so a bar is never split
-// or scaled; long bars need paper (or a roll) that long.
-import { LitElement, html, css, nothing } from 'lit';
-import { customElement, property } from 'lit/decorators.js';
-import { unsafeSVG } from 'lit/directives/unsafe-svg.js';
-import { keyboardBarTemplates, type ProjectFile, type StoredKeyboardBar } from '../../src/index.ts';
+// The print view of a keyboard plan: every planned bar's 1:1 template in the same style as a
+// single bar's (bw-bar-template: the planned undercut with its thickness figures, cord holes at
+// the planned bar's nodes, a 100 mm scale bar on every sheet, tiled with alignment marks when a
+// bar is longer than the sheet), lowest bar first, each bar starting on a new sheet of the paper
+// the maker chose (A4 or US Letter, remembered).
+import { LitElement, html, css } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import { templateDepth, templatePages, templatePapers, type ProjectFile, type StoredKeyboardBar, type TemplatePaper } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent } from '../events.ts';
 import { formatMm } from '../format.ts';
+import { rememberedPaper, rememberPaper } from '../templatePaper.ts';
+import './bw-bar-template.ts';
 import './bw-cautions.ts';
-
-/** Paper margin around each template, mm. */
-const marginMm = 8;
-/** Height of the caption line above each template, mm. */
-const captionMm = 12;
-
-/** One sheet to print: the bar, its SVG text and the template's size in mm. */
-interface Sheet {
-  bar: StoredKeyboardBar;
-  page: string;
-  svg: string;
-  widthMm: number;
-  heightMm: number;
-}
-
 
 /** `<bw-plan-print-view .project>` */
 @customElement('bw-plan-print-view')
@@ -39,109 +26,77 @@ export class BwPlanPrintView extends LitElement {
         display: flex;
         flex-wrap: wrap;
         gap: 0.6rem 1.2rem;
-        align-items: center;
+        align-items: end;
         margin-bottom: 0.8rem;
       }
-      .sheet {
-        background: #ffffff;
-        border: 1px solid var(--bw-line-soft);
-        padding: 0.6rem;
-        margin-bottom: 1rem;
-        overflow-x: auto;
-        break-after: page;
-        break-inside: avoid;
-      }
-      .sheet:last-of-type {
-        break-after: auto;
-      }
-      .caption {
-        margin: 0 0 0.3rem;
-        font-size: 1rem;
-        color: #000000;
-      }
-      .sheet svg {
-        display: block;
-        max-width: none;
+      .select-field {
+        display: grid;
+        gap: 0.2rem;
       }
       @media print {
         .screen-only {
           display: none !important;
-        }
-        .sheet {
-          border: none;
-          padding: 0;
-          margin: 0;
-          overflow: visible;
-        }
-        .caption {
-          font-size: 10pt;
         }
       }
     `,
   ];
 
   @property({ attribute: false }) project: ProjectFile | null = null;
+  @state() private paper: TemplatePaper = rememberedPaper();
 
-  private pageStyle: HTMLStyleElement | null = null;
-
-  private sheets(): Sheet[] {
+  /** The planned bars, lowest first. */
+  private bars(): StoredKeyboardBar[] {
     const plan = this.project?.keyboard_plan?.plan;
     if (!plan) return [];
-    const bars = plan.notes.map((note) => plan.bars[note]).filter((bar): bar is StoredKeyboardBar => bar !== undefined);
-    return keyboardBarTemplates(bars).map((template, index) => ({
-      bar: plan.bars[template.note]!,
-      page: `bw-bar-${index + 1}`,
-      svg: template.svg.replace(/^<\?xml[^>]*>\s*/, ''),
-      widthMm: template.width_mm,
-      heightMm: template.height_mm,
-    }));
+    return plan.notes
+      .map((note) => plan.bars[note])
+      .filter((bar): bar is StoredKeyboardBar => bar !== undefined)
+      .sort((a, b) => a.midi - b.midi);
   }
 
-  /** Named pages live in the document's own style sheet (@page rules do not apply inside shadow roots). */
-  private writePageRules(sheets: readonly Sheet[]): void {
-    if (!this.pageStyle) {
-      this.pageStyle = document.createElement('style');
-      this.pageStyle.dataset.barwright = 'plan-pages';
-      document.head.append(this.pageStyle);
-    }
-    this.pageStyle.textContent = sheets
-      .map((sheet) => `@page ${sheet.page} { size: ${(sheet.widthMm + 2 * marginMm).toFixed(1)}mm ${(sheet.heightMm + captionMm + 2 * marginMm).toFixed(1)}mm; margin: ${marginMm}mm; }`)
-      .join('\n');
-  }
-
-  override disconnectedCallback(): void {
-    super.disconnectedCallback();
-    this.pageStyle?.remove();
-    this.pageStyle = null;
+  private choosePaper(paper: TemplatePaper): void {
+    this.paper = paper;
+    rememberPaper(paper);
   }
 
   protected override render() {
     const record = this.project?.keyboard_plan;
-    const sheets = this.sheets();
-    this.writePageRules(sheets);
+    const bars = this.bars();
     const back = html`<button class="screen-only" @click=${() => this.dispatchEvent(new NavigateEvent('keyboard'))}>Back to the keyboard</button>`;
-    if (!record || sheets.length === 0) return html`<p>No planned bars yet: use “Plan every bar” on the keyboard overview first.</p>${back}`;
-    const longest = Math.max(...sheets.map((sheet) => sheet.widthMm + 2 * marginMm));
+    if (!record || bars.length === 0) return html`<p>No planned bars yet: use “Plan every bar” on the keyboard overview first.</p>${back}`;
+    const layouts = bars.map((bar) => templatePages({ length_mm: bar.bar.length_mm, depth_mm: templateDepth(bar.bar), paper: this.paper }));
+    const sheets = layouts.reduce((sum, layout) => sum + layout.pages, 0);
+    const tiled = bars.filter((_, index) => layouts[index]!.tiles.length > 1).map((bar) => bar.note);
+    const label = templatePapers[this.paper].label;
     return html`<div class="controls screen-only">
         ${back}
+        <div class="select-field">
+          <label for="paper">Paper</label>
+          <select id="paper" @change=${(event: Event) => this.choosePaper((event.target as HTMLSelectElement).value as TemplatePaper)}>
+            ${(Object.keys(templatePapers) as TemplatePaper[]).map((name) => html`<option value=${name} ?selected=${name === this.paper}>${templatePapers[name].label}</option>`)}
+          </select>
+        </div>
         <button class="primary" @click=${() => window.print()}>Print every template</button>
-        <span>${sheets.length} template${sheets.length === 1 ? '' : 's'}, one bar per page, at true scale (1:1).</span>
       </div>
-      <p class="screen-only muted">
-        Each page is as wide as its bar (the longest needs ${formatMm(longest, 0)} mm of paper). Print at 100 % (no “fit to page”) and check the scale bar on each template with a ruler before
-        marking or cutting.${record.plan.summary.complete ? '' : ' The plan is not finished: only the bars planned so far are here.'}
+      <p class="screen-only muted" data-testid="plan-print-summary">
+        ${bars.length} template${bars.length === 1 ? '' : 's'} on ${sheets} sheet${sheets === 1 ? '' : 's'} of ${label} at true scale (1:1), each bar starting a new sheet${tiled.length
+          ? `; ${tiled.join(', ')} ${tiled.length === 1 ? 'is' : 'are'} longer than a sheet and printed in overlapping parts: cut each later sheet along its dashed line and lay it on the solid line of the sheet before`
+          : ''}.
+        Print at 100 % (no “fit to page”) and check the 100 mm bar on each sheet with a rule before marking or cutting.${record.plan.summary.complete ? '' : ' The plan is not finished: only the bars planned so far are here.'}
       </p>
       <bw-cautions class="screen-only"></bw-cautions>
-      ${sheets.map(
-        (sheet) => html`<div class="sheet" style=${`page: ${sheet.page}`} data-testid="print-sheet" data-note=${sheet.bar.note} data-blank-length-mm=${sheet.bar.blank.length_mm}>
-          <p class="caption">
-            <strong>${sheet.bar.note}</strong> · blank ${formatMm(sheet.bar.blank.length_mm, 0)} × ${formatMm(sheet.bar.blank.width_mm, 0)} × ${formatMm(sheet.bar.blank.thickness_mm, 0)} mm · cord holes at
-            ${formatMm(sheet.bar.cord_holes_mm[0])} and ${formatMm(sheet.bar.cord_holes_mm[1])} mm from the left end${sheet.bar.status === 'in-tolerance' ? '' : ` · ${sheet.bar.status === 'infeasible' ? 'cannot be made on this blank (closest shape shown)' : 'out of tolerance'}`}
-          </p>
-          ${unsafeSVG(sheet.svg)}
-        </div>`,
-      )}
-      ${nothing}`;
+      ${bars.map(
+        (bar, index) => html`<bw-bar-template
+          data-testid="print-sheet"
+          data-note=${bar.note}
+          data-blank-length-mm=${bar.blank.length_mm}
+          .bar=${bar.bar}
+          .nodesMm=${bar.cord_holes_mm}
+          heading=${`${bar.note} · planned undercut · blank ${formatMm(bar.blank.length_mm, 0)} × ${formatMm(bar.blank.width_mm, 0)} × ${formatMm(bar.blank.thickness_mm, 0)} mm${bar.status === 'in-tolerance' ? '' : bar.status === 'infeasible' ? ' · cannot be made on this blank (closest shape shown)' : ' · out of tolerance'}`}
+          paper=${this.paper}
+          ?final=${index === bars.length - 1}
+        ></bw-bar-template>`,
+      )}`;
   }
 }
 

@@ -46,15 +46,37 @@ export class BwStationTable extends LitElement {
           overflow: visible;
         }
       }
+      /* On a template sheet: every row the height the paper plan counts (templateSheet.table_row_mm), no scroll box. */
+      :host([printed]) .wrap {
+        max-height: none;
+        overflow: visible;
+        border-radius: 0;
+      }
+      :host([printed]) th,
+      :host([printed]) td {
+        height: 6mm;
+        padding: 0 0.6rem;
+        line-height: 1.2;
+        font-size: 10pt;
+        box-sizing: border-box;
+      }
+      :host([printed]) thead th {
+        height: 9mm;
+      }
+      :host([printed]) td.remove {
+        font-size: 11pt;
+      }
     `,
   ];
 
   @property({ attribute: false }) plan: CutInstructions | null = null;
+  /** Part of a printed template: fixed row heights, no scroll box, and the shortening left to the sheet's heading. */
+  @property({ type: Boolean, reflect: true }) printed = false;
   protected override render() {
     const plan = this.plan;
     if (!plan) return nothing;
     const stations = plan.stations;
-    return html`${plan.shortening_mm > 0.005 ? html`<p class="shorten">First shorten: take ${formatMm(plan.shortening_mm / 2, 1)} mm off each end (${formatMm(plan.shortening_mm, 1)} mm in all).</p>` : nothing}
+    return html`${plan.shortening_mm > 0.005 && !this.printed ? html`<p class="shorten">First shorten: take ${formatMm(plan.shortening_mm / 2, 1)} mm off each end (${formatMm(plan.shortening_mm, 1)} mm in all).</p>` : nothing}
       <div class="wrap">
         <table data-testid="station-table">
           <caption class="visually-hidden">Stations of the cut, millimetres</caption>
