@@ -3,6 +3,7 @@
 // instrument. Times are passed in (ISO 8601) so the edits stay pure and testable.
 import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
 import { InputError } from '../fileFormats/InputError.ts';
+import { checkBlankRanges } from './blankRanges.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
 
 /** Slack (mm) when checking that a shape never adds material to the one before it. */
@@ -131,6 +132,7 @@ function touched(bar: ProjectBar, at: string): ProjectBar {
  */
 export function setBarBlank(project: ProjectFile, barId: string, blank: BarFile, at: string): ProjectFile {
   const checked = parseBarFile(blank, 'blank');
+  checkBlankRanges(checked, 'blank');
   return replaceBar(project, barId, (bar) => {
     const blankOnly = structuredClone(checked);
     delete blankOnly.profile_mm;

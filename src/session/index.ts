@@ -30,3 +30,4 @@ export * from './nextCut.ts';
 export * from './nextCutSolid.ts';
 export * from './roundCheckpoints.ts';
 export * from './suspectReading.ts';
+export * from './readingRange.ts';
