@@ -15,7 +15,7 @@ export class ProjectEditEvent extends Event {
 }
 
 /** Where the shell can go. */
-export type ViewName = 'keyboard' | 'shape' | 'tuning' | 'resonators' | 'template' | 'chimes' | 'plan-print';
+export type ViewName = 'keyboard' | 'shape' | 'tuning' | 'resonators' | 'template' | 'chimes' | 'workshop' | 'plan-print';
 
 /** "Show this view (and bar)" (bubbles, composed). */
 export class NavigateEvent extends Event {

@@ -10,6 +10,7 @@ const loaders: Partial<Record<ViewName, () => Promise<unknown>>> = {
   resonators: () => import('./components/bw-resonator-view.ts'),
   template: () => import('./components/bw-template-view.ts'),
   chimes: () => import('./components/bw-chime-view.ts'),
+  workshop: () => import('./components/bw-workshop-view.ts'),
   'plan-print': () => import('./components/bw-plan-print-view.ts'),
 };
 

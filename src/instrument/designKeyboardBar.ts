@@ -1,5 +1,6 @@
 import { designBar, type DesignRequest, type DesignResult } from '../design/designBar.ts';
 import { applyRemedy } from '../design/designRemedies.ts';
+import { designBarSolid } from '../design/designBarSolid.ts';
 import { describePlannedBar, type KeyboardBarResult } from './keyboardBarResult.ts';
 import type { KeyboardBarJob } from './keyboardBarJobs.ts';
 
@@ -14,7 +15,9 @@ export interface StoredKeyboardBar extends KeyboardBarResult {
  * and resonator (describePlannedBar). A plan never keeps a blank it chose that cannot be cut to
  * its note: when the design misses, the designer's remedies for the blank (its length, then its
  * thickness, each checked by designing again) give the blank the plan uses instead, and the bar
- * says so. A blank the keyboard file gives (one already cut) is kept as it is. Pure and synchronous: the unit of work of a batch, safe to run in any worker (Node
+ * says so. A blank the keyboard file gives (one already cut) is kept as it is. With `job.theory`
+ * 'solid' the design is made on the 3D model (designBarSolid: the line model's targets corrected
+ * by the solid model in outer rounds) and the bar's partials are the solid model's. Pure and synchronous: the unit of work of a batch, safe to run in any worker (Node
  * worker thread or web worker).
  */
 export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
@@ -29,19 +32,28 @@ export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
     // A blank the keyboard file gives (one already cut) is the bar: nothing to choose again.
     ...(job.blank_given ? { remedies: false } : {}),
   };
-  let design: DesignResult = designBar(job.blank, request, {}, source);
+  const design3d = (bar: typeof job.blank, given: DesignRequest): DesignResult => {
+    const solid = designBarSolid(bar, given, {}, source);
+    const { solid: report, theory: _theory, ...rest } = solid;
+    solidNote = `3D model: ${report.solid_solves} solid solves; the line model would call this arch ${report.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${c.toFixed(1)}`).join(' / ')} cents`;
+    return { ...rest, theory: 'timoshenko' };
+  };
+  let solidNote: string | null = null;
+  const designOnce = (bar: typeof job.blank, given: DesignRequest): DesignResult => (job.theory === 'solid' ? design3d(bar, given) : designBar(bar, given, {}, source));
+  let design: DesignResult = designOnce(job.blank, request);
   const notes: string[] = job.schedule_note ? [job.schedule_note] : [];
   if (!design.feasible && !job.blank_given && design.remedies?.length) {
     const remedy = design.remedies.find((r) => r.kind === 'blank_length_mm') ?? design.remedies.find((r) => r.kind === 'blank_thickness_mm');
     if (remedy) {
       const changed = applyRemedy(job.blank, request, remedy);
-      const again = designBar(changed.bar, { ...changed.request, remedies: false }, {}, source);
+      const again = designOnce(changed.bar, { ...changed.request, remedies: false });
       if (again.feasible) {
         notes.push(`the plan changed the blank: ${remedy.change} (the scheduled blank could not reach the targets)`);
         design = again;
       }
     }
   }
+  if (solidNote) notes.push(solidNote);
   const result = describePlannedBar(design.bar, {
     note: job.note,
     midi: job.midi,
@@ -54,6 +66,7 @@ export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
     ...(design.reason ? { reason: design.reason } : {}),
     ...(job.resonator ? { resonator: job.resonator } : {}),
     ...(notes.length ? { notes } : {}),
+    ...(job.theory === 'solid' ? { solid: { hz: design.predicted_hz, nodes_mm: design.cord_holes_mm } } : {}),
   });
   return { ...result, fingerprint: job.fingerprint };
 }

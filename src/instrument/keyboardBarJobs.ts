@@ -30,15 +30,18 @@ export interface KeyboardBarJob {
   schedule_note?: string;
   /** The blank's length was given in the keyboard file (a blank already cut): the plan never changes it. */
   blank_given?: boolean;
+  /** `solid`: the design's partials are the 3D model's (designBarSolid); absent: the line model's. */
+  theory?: 'solid';
 }
 
 /**
  * The design jobs of a keyboard, lowest note first: each note's blank (scheduled length × its
  * section width × thickness, its material), target, ratios, tolerances, the workshop (the file's,
  * else barwright's default) with the limits the file sets over it (keyboardLimits) and resonator,
- * with a fingerprint of them all for resuming.
+ * with a fingerprint of them all for resuming; `theory` 'solid' asks for designs on the 3D model
+ * (part of the fingerprint, so a line-model plan is not taken for a solid one).
  */
-export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote[], schedule: readonly ScheduledBlank[]): KeyboardBarJob[] {
+export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote[], schedule: readonly ScheduledBlank[], theory: 'timoshenko' | 'solid' = 'timoshenko'): KeyboardBarJob[] {
   return notes.map((note, i) => {
     const blank = schedule[i]!;
     const bar: BarFile = {
@@ -61,6 +64,7 @@ export function keyboardBarJobs(file: KeyboardFile, notes: readonly KeyboardNote
         : {}),
       ...(blank.reason ? { schedule_note: blank.reason } : {}),
       ...(blank.fixed ? { blank_given: true } : {}),
+      ...(theory === 'solid' ? { theory } : {}),
     };
     return { key: note.name, fingerprint: stableHash(inputs), note: note.name, midi: note.midi, index: note.index, ...inputs };
   });

@@ -35,8 +35,12 @@ export interface KeyboardBarResult {
   /** The designer's prediction, Hz and cents from target. */
   predicted_hz: number[];
   cents_error: number[];
-  /** Re-analysis of the planned bar on the fine mesh: the tuned partials and the first four bending modes. */
-  check: { elements: number; hz: number[]; cents_error: number[]; bending_hz: number[] };
+  /**
+   * Re-analysis of the planned bar on the fine mesh: the tuned partials and the first four bending
+   * modes. With `theory` 'solid' the tuned partials (`hz`, `cents_error`) are the 3D model's analysis
+   * of the final arch (the status follows them); `bending_hz` stays the line model's.
+   */
+  check: { elements: number; hz: number[]; cents_error: number[]; bending_hz: number[]; theory?: 'solid' };
   centre_thickness_mm: number;
   thinnest_mm: number;
   /** Where the undercut starts and ends, mm from the left end (null when the bar is uncut). */
@@ -62,6 +66,8 @@ export interface PlannedBarContext {
   resonator?: { inner_diameter_mm: number; air_temperature_c: number; open_end: 'unflanged' | 'flanged' };
   /** Extra notes to carry (blank schedule flags). */
   notes?: readonly string[];
+  /** The 3D model's tuned partials (Hz) and fundamental nodes (mm) of the final arch, for a bar designed on it: they replace the line model's check. */
+  solid?: { hz: readonly number[]; nodes_mm: readonly number[] };
 }
 
 /** Elements of the check mesh: several times the solver's automatic density (Timoshenko O(h⁸): far below 0.001 cent). */
@@ -87,7 +93,7 @@ export function describePlannedBar(bar: BarFile, context: PlannedBarContext): Ke
   ];
   const partials = context.ratios.length;
   const analysis = analyzeLineBar(bar, { modes: Math.max(4, partials), elements: checkElements });
-  const checkHz = analysis.bending.slice(0, partials).map((m) => m.hz);
+  const checkHz = context.solid ? [...context.solid.hz] : analysis.bending.slice(0, partials).map((m) => m.hz);
   const checkCents = checkHz.map((hz, k) => cents(hz, context.target_hz[k]!));
   const outside = checkCents.flatMap((c, k) => (Math.abs(c) > context.tolerance_cents[k]! ? [`partial ${k + 1} is ${c > 0 ? '+' : ''}${c.toFixed(1)} cents (tolerance ±${context.tolerance_cents[k]})`] : []));
   const within = outside.length === 0;
@@ -102,7 +108,7 @@ export function describePlannedBar(bar: BarFile, context: PlannedBarContext): Ke
           const end = profile[Math.min(profile.length - 1, cutIndices[cutIndices.length - 1]! + 1)]![0];
           return { start_mm: start, end_mm: end, extent_mm: end - start };
         })();
-  const nodes = analysis.bending[0]!.nodes_mm ?? [];
+  const nodes = context.solid?.nodes_mm.length === 2 ? [...context.solid.nodes_mm] : (analysis.bending[0]!.nodes_mm ?? []);
   const reasons = [...(context.reason ? [context.reason] : []), ...(context.feasible && !within ? outside : []), ...(context.notes ?? [])];
   const result: KeyboardBarResult = {
     note: context.note,
@@ -119,7 +125,7 @@ export function describePlannedBar(bar: BarFile, context: PlannedBarContext): Ke
     target_hz: [...context.target_hz],
     predicted_hz: [...context.predicted_hz],
     cents_error: context.predicted_hz.map((hz, k) => cents(hz, context.target_hz[k]!)),
-    check: { elements: analysis.mesh.elements, hz: checkHz, cents_error: checkCents, bending_hz: analysis.bending.slice(0, 4).map((m) => m.hz) },
+    check: { elements: analysis.mesh.elements, hz: checkHz, cents_error: checkCents, bending_hz: analysis.bending.slice(0, 4).map((m) => m.hz), ...(context.solid ? { theory: 'solid' as const } : {}) },
     centre_thickness_mm: centre,
     thinnest_mm: thinnest,
     arch,

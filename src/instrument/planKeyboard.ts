@@ -26,6 +26,8 @@ export interface KeyboardPlan {
   bars: Record<string, StoredKeyboardBar>;
   /** The workshop the bars were planned for (its name). */
   workshop?: string;
+  /** `solid` when the bars were designed on the 3D model. */
+  theory?: 'solid';
   summary: { bars: number; designed: number; in_tolerance: number; out_of_tolerance: number; infeasible: number; advised: number; complete: boolean };
   cautions: readonly string[];
 }
@@ -51,6 +53,8 @@ export interface PlanKeyboardOptions {
   previous?: Partial<Pick<KeyboardPlan, 'bars' | 'advice'>>;
   onProgress?: (progress: PlanProgress) => void;
   signal?: AbortSignal;
+  /** `solid`: every bar is designed on the 3D model (a few seconds a bar); default the line model. */
+  theory?: 'timoshenko' | 'solid';
 }
 
 /** Stored results whose fingerprints match the jobs': the work a resumed batch skips. */
@@ -110,7 +114,7 @@ export async function planKeyboard(file: KeyboardFile, options: PlanKeyboardOpti
   const spans = adviceSpans(notes);
   const adviceJobs = new Map(notes.map((note) => [note.name, blankAdviceJob(file, note)]));
   const advice: Record<string, StoredBlankAdvice> = reusableResults([...adviceJobs.values()], options.previous?.advice);
-  const base = { name: file.name, a4_hz: file.pitch.a4_hz, range: { ...file.range }, notes: notes.map((n) => n.name), workshop: (file.workshop ?? defaultWorkshop).name ?? 'workshop', cautions: woodCautions } as const;
+  const base = { name: file.name, a4_hz: file.pitch.a4_hz, range: { ...file.range }, notes: notes.map((n) => n.name), workshop: (file.workshop ?? defaultWorkshop).name ?? 'workshop', ...(options.theory === 'solid' ? { theory: 'solid' as const } : {}), cautions: woodCautions } as const;
   const adviseRunner = runnerFor(runner, 'advise');
   let roundsDone = 0;
   for (;;) {
@@ -128,7 +132,7 @@ export async function planKeyboard(file: KeyboardFile, options: PlanKeyboardOpti
     return { format: 'barwright.keyboard-plan', version: 1, ...base, advice, schedule: [], bars: {}, summary: summarisePlan(base.notes, {}, Object.keys(advice).length) };
   }
   const schedule = blankSchedule(file, notes, noteBlankWindows(spans, new Map(Object.entries(advice))));
-  const jobs: KeyboardBarJob[] = keyboardBarJobs(file, notes, schedule);
+  const jobs: KeyboardBarJob[] = keyboardBarJobs(file, notes, schedule, options.theory ?? 'timoshenko');
   const outcome = await runBatch(jobs, (job) => job.key, runnerFor(runner, 'design'), {
     done: reusableResults(jobs, options.previous?.bars),
     ...(options.signal ? { signal: options.signal } : {}),

@@ -18,3 +18,4 @@ export * from './projectKeyboardPlanEdits.ts';
 export * from './storePlanInProject.ts';
 export * from './projectSessionContext.ts';
 export * from './projectTemperatureDrift.ts';
+export * from './projectWorkshop.ts';

@@ -8,6 +8,7 @@ import { parseSessionFile } from '../fileFormats/sessionFile.ts';
 import { isInputError } from '../fileFormats/InputError.ts';
 import { keyboardPlanRecordSchema } from './projectKeyboardPlan.ts';
 import { parseLotFile } from '../fileFormats/lotFile.ts';
+import { parseWorkshop } from '../fileFormats/workshopFile.ts';
 
 /** A finite number > 0 with a unit in the rule. */
 function positive(unit: string) {
@@ -155,6 +156,17 @@ const lotsSchema = z.unknown().transform((value, context) => {
   }
 });
 
+/** The project's workshop, checked by the workshop file's parser (the CLI's `--workshop`), so it exports as a workshop file. */
+const workshopSchema = z.unknown().transform((value, context) => {
+  try {
+    return parseWorkshop(value, 'project', 'workshop.');
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    context.addIssue({ code: 'custom', path: fieldToPath(error.field).slice(1), message: error.rule, input: value });
+    return z.NEVER;
+  }
+});
+
 const barSchema = z.looseObject({
   id: z.string({ error: 'must be text' }).min(1, { error: 'must not be empty' }),
   note: noteName,
@@ -196,6 +208,7 @@ export const projectFileSchema = z
     bars: z.array(barSchema, { error: 'must be a list of bars' }),
     keyboard_plan: keyboardPlanRecordSchema.optional(),
     lots: lotsSchema.optional(),
+    workshop: workshopSchema.optional(),
   })
   .superRefine((project, context) => {
     const registerIds = new Set<string>();

@@ -6,6 +6,7 @@
 import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import type { LotBarRecord } from '../fileFormats/lotFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
+import type { Workshop } from '../fileFormats/workshopFile.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
 export interface SessionTarget {
@@ -154,6 +155,12 @@ export interface ProjectFile {
   keyboard_plan?: KeyboardPlanRecord;
   /** What each lot (board or batch) of wood taught, bar by bar, from its finished bars (optional; by lot name). */
   lots?: Record<string, { bars: LotBarRecord[] }>;
+  /**
+   * The workshop the bars are cut in: its tools set the designer's limits for every bar and plan
+   * of the project (the same section as a keyboard file's `workshop`). Absent: barwright's default
+   * workshop.
+   */
+  workshop?: Workshop;
 }
 
 /** Current version of the project file format. */

@@ -50,7 +50,7 @@ function spansOf<T extends object>(notes: readonly number[], valueOf: (midi: num
  * set up nearest below it (the lowest bar for notes beneath every bar), so the sections step
  * where the maker's blanks step; timber and A4 from the instrument, a bar's own timber where it
  * differs; resonators at the instrument's air temperature and open end when every register used
- * has a bore. Blanks already cut keep their length unless `keepBlankLengths` is false. Throws
+ * has a bore; the project's workshop (absent: barwright's default). Blanks already cut keep their length unless `keepBlankLengths` is false. Throws
  * InputError(keyboard plan, field, rule) for a range outside the instrument or with no bars.
  */
 export function keyboardFileFromProject(project: ProjectFile, choice: ProjectPlanChoice): KeyboardFile {
@@ -109,6 +109,7 @@ export function keyboardFileFromProject(project: ProjectFile, choice: ProjectPla
     sections,
     tuning,
     limits: {},
+    ...(project.workshop ? { workshop: project.workshop } : {}),
     blanks: { length_step_mm: 1, lengths_mm: lengths },
     ...(diameters ? { resonators: { air_temperature_c: instrument.air_temperature_c, open_end: instrument.resonator_end, diameters } } : {}),
   };

@@ -312,7 +312,7 @@ describe('words', () => {
     const { context, page } = await freshPage();
     await openView(page, 'keyboard');
     const tabs = await page.locator('bw-app nav button').allInnerTexts();
-    expect(tabs.map((text) => text.replace(/\s+/g, ' ').trim())).toEqual(['Keyboard', 'Shape · A2', 'Tuning · A2', 'Resonators', 'Template · A2', 'Chime set']);
+    expect(tabs.map((text) => text.replace(/\s+/g, ' ').trim())).toEqual(['Keyboard', 'Shape · A2', 'Tuning · A2', 'Resonators', 'Template · A2', 'Chime set', 'Workshop']);
     // The buttons that open a bar's views carry the views' names; none says "Tune" or just "Print".
     const buttons = (await page.locator('button').allInnerTexts()).map((text) => text.trim());
     expect(buttons).not.toContain('Tune');
@@ -363,6 +363,7 @@ const views: { hash: string; name: string; ready: (page: Page) => Promise<unknow
   { hash: 'resonators', name: 'resonators', ready: (page) => page.locator('[data-testid="resonators"]').waitFor() },
   { hash: 'template/bar-C4', name: 'template', ready: (page) => page.locator('[data-testid="template-tile"]').first().waitFor() },
   { hash: 'chimes', name: 'chimes', ready: (page) => page.locator('[data-testid="chime-table"]').waitFor({ timeout: 60_000 }) },
+  { hash: 'workshop', name: 'workshop', ready: (page) => page.locator('[data-testid="workshop-limits"]').waitFor({ timeout: 60_000 }) },
   { hash: 'plan-print', name: 'plan-print', ready: (page) => page.locator('bw-plan-print-view').waitFor() },
 ];
 

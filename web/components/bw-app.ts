@@ -30,6 +30,7 @@ const views: { name: ViewName; label: string; needsBar: boolean; inNav?: false }
   { name: 'resonators', label: 'Resonators', needsBar: false },
   { name: 'template', label: 'Template', needsBar: true },
   { name: 'chimes', label: 'Chime set', needsBar: false },
+  { name: 'workshop', label: 'Workshop', needsBar: false },
   { name: 'plan-print', label: 'Templates of the plan', needsBar: false, inNav: false },
 ];
 
@@ -373,6 +374,8 @@ export class BwApp extends LitElement {
         return html`<bw-template-view .project=${project} bar-id=${barId}></bw-template-view>`;
       case 'chimes':
         return html`<bw-chime-view></bw-chime-view>`;
+      case 'workshop':
+        return html`<bw-workshop-view .project=${project}></bw-workshop-view>`;
       case 'plan-print':
         return html`<bw-plan-print-view .project=${project}></bw-plan-print-view>`;
     }

@@ -144,7 +144,7 @@ export class BwKeyboardPlan extends LitElement {
     const resumable = summary && !summary.complete;
     return html`<section class="panel" aria-labelledby="plan-heading">
       <h2 id="plan-heading">Plan every bar</h2>
-      <p class="muted">Works out a blank length for every note and plans each bar's undercut to its target ratios, on the workers of this computer. Sections and targets come from the bars set up below: each note takes them from the nearest bar at or below it.</p>
+      <p class="muted">Works out a blank length for every note and plans each bar's undercut to its target ratios, on the workers of this computer. Sections and targets come from the bars set up below: each note takes them from the nearest bar at or below it. The tools of <a href="#/workshop" data-testid="plan-workshop">${project.workshop?.name ?? 'the default workshop'}</a> set what may be cut.</p>
       <div class="choices">
         <div class="field">
           <label for="plan-from">From note</label>

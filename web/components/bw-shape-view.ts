@@ -196,10 +196,15 @@ export class BwShapeView extends LitElement {
     return this.analysis.state(this.barId);
   }
 
-  /** What a plan for `bar` asks the designer: its present shape, note, targets and thinnest allowed. */
+  /** What a plan for `bar` asks the designer: its present shape, note, targets, thinnest allowed and the project's workshop. */
   private designPayload(project: ProjectFile, bar: ProjectBar): DesignPayload {
     const register = registerOf(project, bar);
-    const payload: DesignPayload = { bar: bar.current, target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents }, limits: { min_thickness_mm: bar.session.limits.min_thickness_mm } };
+    const payload: DesignPayload = {
+      bar: bar.current,
+      target: { note: bar.note, a4: project.instrument.a4_hz, ratios: register.ratios, tolerance_cents: register.tolerance_cents },
+      limits: { min_thickness_mm: bar.session.limits.min_thickness_mm },
+      ...(project.workshop ? { workshop: project.workshop } : {}),
+    };
     const inputs = barCalibrationInputs(project, bar);
     return inputs ? { ...payload, ...inputs } : payload;
   }
@@ -372,12 +377,13 @@ export class BwShapeView extends LitElement {
 
   private renderPlan() {
     const bar = this.bar!;
+    const project = this.project!;
     const design = bar.design;
     const planning = this.design.state(bar.id);
     const progress = planning.progress;
     return html`<section class="panel" aria-labelledby="plan-heading">
       <h3 id="plan-heading">Plan the undercut</h3>
-      <p class="muted">Finds an arch that reaches the targets from this blank, removing wood only and keeping at least ${formatMm(bar.session.limits.min_thickness_mm)} mm.</p>
+      <p class="muted">Finds an arch that reaches the targets from this blank, removing wood only, keeping at least ${formatMm(bar.session.limits.min_thickness_mm)} mm and within what the tools of <a href="#/workshop">${project.workshop?.name ?? 'the default workshop'}</a> can cut.</p>
       <div class="spread">
         <button class="primary" ?disabled=${planning.running || bar.current.section.shape !== 'rect'} @click=${() => this.plan()}>Plan the undercut</button>
         ${planning.running

@@ -63,7 +63,7 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
 
   /** An undercut plan; progress counts solver calls. */
   design(payload, job) {
-    const request = { target: payload.target, limits: payload.limits };
+    const request = { target: payload.target, limits: payload.limits, ...(payload.workshop ? { workshop: payload.workshop } : {}) };
     const run = { signal: job.signal, onProgress: (step: { solves: number; maxSolves: number }) => job.progress(step.solves, step.maxSolves) };
     // A bar that has been struck is planned with its calibrated model (one truth with the tuning view).
     if (payload.session && payload.session.steps.length > 0) return calibratedDesign(payload.bar, request, summaryOf(payload.session, payload.lot), run, 'plan');

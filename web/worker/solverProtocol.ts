@@ -1,6 +1,6 @@
 // The solver worker's jobs (solverWorker.ts), in the workbench's one job protocol
 // (jobProtocol.ts): for each kind, the payload the page sends and the result it gets back.
-import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile } from '../../src/index.ts';
+import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile, Workshop } from '../../src/index.ts';
 
 /** Analyse one bar: its modes, optionally shapes and the where-to-cut map. */
 export interface AnalyzePayload {
@@ -43,6 +43,8 @@ export interface DesignPayload {
   bar: BarFile;
   target: { note: string; a4: number; ratios: number[]; tolerance_cents: number[] };
   limits: { min_thickness_mm: number };
+  /** The project's workshop (its tools set the other limits); absent: barwright's default workshop. */
+  workshop?: Workshop;
   /** The bar's session, once it has measurements: the plan is then made with its calibrated model. */
   session?: SessionFile;
   /** What the bar's lot taught (the calibration's prior), with `session`. */

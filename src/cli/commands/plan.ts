@@ -65,12 +65,13 @@ function lotLines(notes: readonly LotMaterialNote[]): string {
 export const planCommand: Command = {
   name: 'plan',
   summary: 'plan a whole keyboard: blank schedule, every bar designed, cut list, 1:1 templates',
-  usage: 'barwright plan KEYBOARD [--workshop FILE] [--lots LOTS] [--out DIR] [--workers N] [--fresh] [--quiet] [--json]',
+  usage: 'barwright plan KEYBOARD [--workshop FILE] [--lots LOTS] [--theory timoshenko|solid] [--out DIR] [--workers N] [--fresh] [--quiet] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       out: { type: 'string' },
       lots: { type: 'string' },
       workshop: { type: 'string' },
+      theory: { type: 'string' },
       workers: { type: 'string' },
       fresh: { type: 'boolean' },
       quiet: { type: 'boolean' },
@@ -78,6 +79,8 @@ export const planCommand: Command = {
     });
     if (positionals.length !== 1) throw new InputError('command line', 'KEYBOARD', 'give exactly one keyboard file');
     const path = positionals[0]!;
+    const theory = values.theory ?? 'timoshenko';
+    if (theory !== 'timoshenko' && theory !== 'solid') throw new InputError('command line', '--theory', `must be timoshenko or solid (got "${theory}")`);
     let file = parseKeyboardFile(await readJsonFile(path, io), path);
     // A workshop file given on the command line replaces the keyboard file's own.
     if (values.workshop !== undefined) {
@@ -97,6 +100,7 @@ export const planCommand: Command = {
     try {
       plan = await planKeyboard(file, {
         runner: pool,
+        theory,
         ...(previous ? { previous } : {}),
         signal: controller.signal,
         onProgress: (p) => {
