@@ -5,13 +5,11 @@
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import {
-  barMaterialFamily,
   barLot,
   barLotPrior,
   barSession,
   barTargetHz,
   comparePartials,
-  cutInstructions,
   labelPartials,
   markCutDone,
   undoMarkedCut,
@@ -20,15 +18,11 @@ import {
   recordLotLearning,
   recordStep,
   registerOf,
-  fineSandingDepthMm,
   readingRangesHz,
-  suspectReading,
-  type SuspectReading,
   setAdvice,
   setMinimumThickness,
   stableHash,
   warmBarMinutes,
-  type CutInstructions,
   type NextCutResult,
   type ProjectBar,
   type ProjectFile,
@@ -38,7 +32,7 @@ import { solver } from '../worker/SolverClient.ts';
 import type { AnalyzeResult, NextCutAdvice } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
-import { formatHz, formatMm, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
+import { formatHz, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
 import type { RoundSubmitDetail } from './bw-partial-entry.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
 import type { RoundConditions } from './bw-round-conditions.ts';
@@ -47,16 +41,13 @@ import './bw-bar-picker.ts';
 import './bw-partial-entry.ts';
 import './bw-cents-readout.ts';
 import './bw-profile-drawing.ts';
-import './bw-station-table.ts';
 import './bw-round-history.ts';
 import './bw-last-round.ts';
-import './bw-caliper-checkpoints.ts';
 import './bw-caliper-verdict.ts';
 import './bw-round-conditions.ts';
 import './bw-cautions.ts';
 import './bw-number-field.ts';
-import './bw-cut-made.ts';
-import './bw-round-checkpoints.ts';
+import './bw-cut-advice.ts';
 
 /** The listening element, when its module is part of this build. */
 const listenModules = import.meta.glob('./bw-listen.ts');
@@ -131,12 +122,6 @@ export class BwTuningView extends LitElement {
         gap: 0.6rem;
         flex-wrap: wrap;
         margin-bottom: 0.4rem;
-      }
-      .suspect {
-        border: 2px solid var(--bw-problem-ink);
-        border-radius: 8px;
-        padding: 0.4rem 0.8rem;
-        margin-bottom: 0.8rem;
       }
       .listen-slot {
         margin-bottom: 0.8rem;
@@ -413,15 +398,8 @@ export class BwTuningView extends LitElement {
             : nothing}
       </section>`;
     }
-    const plan: CutInstructions = (advice as { cut?: CutInstructions | null }).cut ?? cutInstructions(bar.current, advice.bar_after);
-    const extras = advice as { cautions?: string[]; warnings?: string[]; wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
-    // Where the temperature coefficient comes from is a note on the readings, not a check before cutting.
-    const checks = (extras.warnings ?? []).filter((warning) => !warning.startsWith('temperature:'));
-    const predicted = comparePartials(advice.predicted_hz, targets, register.tolerance_cents);
+    const extras = advice as { wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
     const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
-    const suspect = this.suspect(bar, extras.calibration);
-    const light = plan.shortening_mm <= 0.005 && plan.max_depth_mm < fineSandingDepthMm;
-    const effect = (advice as { predicted_cents?: number[]; now_cents?: number[] }).predicted_cents?.map((cents, index) => cents - ((advice as { now_cents?: number[] }).now_cents?.[index] ?? cents)) ?? [];
     return html`<section class="panel" aria-labelledby="advice-heading">
       <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
       <bw-caliper-verdict .checked=${extras.calibration?.cut_from_plan.find((entry) => entry.step === bar.session.steps.length) ?? null}></bw-caliper-verdict>
@@ -429,26 +407,8 @@ export class BwTuningView extends LitElement {
         ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p>
             ${extras.wait_minutes && extras.wait_minutes > 0 ? html`<p class="problem" role="status" data-testid="still-warm">The last round was struck while the bar was still warm from the cut (it reads flat): strike it again in ${extras.wait_minutes} min before marking it done.</p>` : nothing}
             <button class="primary" @click=${() => this.markDone()}>Mark the bar done</button>`
-        : advice.status === 'stuck'
-          ? suspect
-            ? html`${this.renderSuspect(suspect, bar)}<details><summary>What the advice made of it</summary><p>No removal can reach the target from this reading: ${advice.reason ?? ''}</p></details>`
-            : html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
-          : html`${suspect ? this.renderSuspect(suspect, bar) : nothing}
-              <p class="advice-status">${light ? 'Only a light sanding: under 0.05 mm anywhere, shaded on the drawing.' : html`Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.`}</p>
-              ${checks.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${checks.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
-              <bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>
-              <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
-              <bw-round-checkpoints .now=${bar.current} .cutTo=${advice.bar_after} .plan=${plan} .effectCents=${effect}></bw-round-checkpoints>
-              <details>
-                <summary>Every station of the plan (from the left end)</summary>
-                <bw-station-table .plan=${plan}></bw-station-table>
-              </details>
-              <bw-caliper-checkpoints .points=${advice.checkpoints ?? []}></bw-caliper-checkpoints>
-              <h4>Expected after this cut</h4>
-              <div class="after">
-                ${predicted.map((standing, index) => html`<bw-cents-readout compact label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz}></bw-cents-readout>`)}
-              </div>
-              <bw-cut-made @cut-made=${(event: CustomEvent<CutMadeDetail>) => this.markDone(event.detail.percent < 100 ? { percent: event.detail.percent } : {})}></bw-cut-made>`}
+        : html`<bw-cut-advice .project=${project} .bar=${bar} .advice=${advice} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}
+            @cut-made=${(event: CustomEvent<CutMadeDetail>) => this.markDone(event.detail.percent < 100 ? { percent: event.detail.percent } : {})}></bw-cut-advice>`}
       ${calibrated
         ? html`<details>
             <summary>What the rounds taught about this blank</summary>
@@ -458,34 +418,6 @@ export class BwTuningView extends LitElement {
           </details>`
         : nothing}
     </section>`;
-  }
-
-  /** The last round judged from the advice's calibration: suspect when no plausible bar explains it (suspectReading). */
-  private suspect(bar: ProjectBar, calibration: NextCutResult['calibration'] | undefined): SuspectReading | null {
-    const last = bar.session.steps[bar.session.steps.length - 1];
-    if (!calibration || !last) return null;
-    const verdict = suspectReading({
-      family: barMaterialFamily(bar.current),
-      E_GPa: calibration.E_GPa,
-      step: bar.session.steps.length,
-      residualCents: calibration.residual_cents[calibration.residual_cents.length - 1] ?? [],
-      flags: calibration.flags,
-      correctionPercent: calibration.correction_percent,
-      archDepth: calibration.arch_depth,
-      readingsHz: last.measured_hz,
-      ratios: registerOf(this.project!, bar).ratios,
-    });
-    return verdict.suspect ? verdict : null;
-  }
-
-  private renderSuspect(verdict: SuspectReading, bar: ProjectBar) {
-    return html`<div class="suspect" role="alert" data-testid="suspect-reading">
-      <p class="advice-status problem">⚠ SUSPECT READING: check round ${bar.session.steps.length} before cutting</p>
-      <p>No plausible bar sounds like this: ${verdict.why.join('; ')}.</p>
-      <p><strong>Check, most likely first:</strong></p>
-      <ul>${verdict.check.map((item) => html`<li>${item}</li>`)}</ul>
-      <p class="muted">If the reading was wrong, remove the last round below and enter it again; if it stands after a careful re-strike, the bar itself may be cracked or the cut not as recorded.</p>
-    </div>`;
   }
 
   private renderLimit() {
