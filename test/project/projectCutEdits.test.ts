@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { markCutDone, parseProjectFile, partOfCut, recordStep, removeLastStep, serializeProjectFile, setAdvice, thicknessAtMm, undoMarkedCut, withStationThickness, type InputError, type ProjectFile } from '../../src/index.ts';
+import { markCutDone, parseProjectFile, setBarBlank, partOfCut, recordStep, removeLastStep, serializeProjectFile, setAdvice, thicknessAtMm, undoMarkedCut, withStationThickness, type InputError, type ProjectFile } from '../../src/index.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
@@ -101,5 +101,19 @@ describe('taking back "I made this cut"', () => {
     expect(undone.lots).toEqual(project.lots);
     const struck = recordStep(cut, 'bar-A2', [113, 450, 1112], { at: later });
     expect(thrown(() => undoMarkedCut(struck, before, later)).rule).toMatch(/remove that round first/);
+  });
+});
+
+describe('a blank beyond what any blank can be', () => {
+  it('is refused by the edit with the field and its range (width 100000 mm, E 1 000 000 GPa)', () => {
+    const project = demo();
+    const blank = bar(project, 'bar-E3').blank;
+    const section = blank.section;
+    if (section.shape !== 'rect') throw new Error('the demo E3 is a rectangular bar');
+    const wide = thrown(() => setBarBlank(project, 'bar-E3', { ...blank, section: { ...section, width_mm: 100000 } }, at));
+    expect([wide.field, wide.rule]).toEqual(['section.width_mm', 'must lie within 5–300 mm']);
+    const stiff = thrown(() => setBarBlank(project, 'bar-E3', { ...blank, material: { E_GPa: 1e6, G_GPa: 1, density_kg_m3: 900 } }, at));
+    expect([stiff.field, stiff.rule]).toEqual(['material.E_GPa', 'must lie within 0.5–450 GPa']);
+    expect(() => setBarBlank(project, 'bar-E3', blank, at)).not.toThrow();
   });
 });

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
-import { cutInstructions, fileThicknessMm, fineSanding, fineSandingDepthMm, nextCut, roundCheckpoints, suspectCorrectionPerDepth, suspectReading, type NextCutResult } from '../../src/session/index.ts';
+import { cutInstructions, fileThicknessMm, fineSanding, fineSandingDepthMm, nextCut, readingRangesHz, roundCheckpoints, suspectCorrectionPerDepth, suspectReading, type NextCutResult } from '../../src/session/index.ts';
 import { realPartials } from './simulatedBar.ts';
 
 const guess = { E_GPa: 18, G_GPa: 1.3, density_kg_m3: 1000 };
@@ -137,5 +137,23 @@ describe('a suspect reading, from the session’s calibration', () => {
     const verdict = judge(result, wrong);
     expect(verdict.suspect).toBe(true);
     expect(verdict.check).toHaveLength(4);
+  });
+});
+
+describe('the range a reading may lie in', () => {
+  it('is a quarter to four times what the shape should sound (two octaves either way, 2400 cents), rounded outward to 3 figures', () => {
+    const ranges = readingRangesHz([110.5, 442, 1105]);
+    expect(ranges).toEqual([
+      [27.6, 442],
+      [110, 1770],
+      [276, 4420],
+    ]);
+    for (const [index, [low, high]] of ranges.entries()) {
+      const expected = [110.5, 442, 1105][index]!;
+      expect(1200 * Math.log2(expected / low)).toBeGreaterThanOrEqual(2400 - 1e-9);
+      expect(1200 * Math.log2(high / expected)).toBeGreaterThanOrEqual(2400 - 1e-9);
+    }
+    // The reading of 1e9 Hz that once reached the round history is far outside.
+    expect(1e9).toBeGreaterThan(ranges[0]![1]);
   });
 });

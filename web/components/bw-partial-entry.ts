@@ -169,7 +169,7 @@ export class BwPartialEntry extends LitElement {
               @keydown=${(event: KeyboardEvent) => this.onKey(event, index)}
               @blur=${() => this.onBlur(index)}
             />
-            <span class="hint" id=${`partial-${index}-hint`}>Hz · target ${formatHz(this.targets[index])}${this.ranges[index] ? html` · ${formatHz(this.ranges[index]![0])}–${formatHz(this.ranges[index]![1])}` : nothing}</span>
+            <span class="hint" id=${`partial-${index}-hint`}>Hz · target ${formatHz(this.targets[index])}${this.ranges[index] ? html` · takes ${formatHz(this.ranges[index]![0])}–${formatHz(this.ranges[index]![1])}` : nothing}</span>
             ${error ? html`<span class="message" role="alert">✕ ${error}</span>` : nothing}
           </div>`;
         })}
