@@ -27,6 +27,28 @@ export interface SectionLaw {
 export type BendingPlane = 'vertical' | 'lateral';
 
 /**
+ * The drilled section's [EI, κGA, ρA, ρI] and their thickness slopes for bending in `plane`, from
+ * drilledBendingSection (the section with a cord hole's chord removed); `shearModulus` is κG.
+ */
+function drilledEvaluator(width: number, young: number, shearModulus: number, density: number, plane: BendingPlane): NonNullable<SectionLaw['evaluateDrilled']> {
+  return (t, chord, depthBelowTop, out, derivative) => {
+    const s = drilledBendingSection(width, t, chord, depthBelowTop);
+    const moment = plane === 'vertical' ? s.secondMomentVertical : s.secondMomentLateral;
+    const momentSlope = plane === 'vertical' ? s.secondMomentVerticalSlope : s.secondMomentLateralSlope;
+    out[0] = young * moment;
+    out[1] = shearModulus * s.area;
+    out[2] = density * s.area;
+    out[3] = density * moment;
+    if (derivative) {
+      derivative[0] = young * momentSlope;
+      derivative[1] = shearModulus * s.areaSlope;
+      derivative[2] = density * s.areaSlope;
+      derivative[3] = density * momentSlope;
+    }
+  };
+}
+
+/**
  * The bending law of a section and material in one plane. Rect: EI = E·b·t³/12 (vertical) or
  * E·t·b³/12 (lateral), κGA = κ·G·b·t, ρA = ρ·b·t, ρI likewise; round and tube are uniform.
  * Classical beam theory about the section's own centroid (contract); over a cord hole the net
@@ -56,19 +78,7 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
             derivative[3] = (rho * b * t2) / 4;
           }
         },
-        evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
-          const s = drilledBendingSection(b, t, chord, depthBelowTop);
-          out[0] = E * s.secondMomentVertical;
-          out[1] = kappa * G * s.area;
-          out[2] = rho * s.area;
-          out[3] = rho * s.secondMomentVertical;
-          if (derivative) {
-            derivative[0] = E * s.secondMomentVerticalSlope;
-            derivative[1] = kappa * G * s.areaSlope;
-            derivative[2] = rho * s.areaSlope;
-            derivative[3] = rho * s.secondMomentVerticalSlope;
-          }
-        },
+        evaluateDrilled: drilledEvaluator(b, E, kappa * G, rho, 'vertical'),
       };
     }
     const b3 = b * b * b;
@@ -86,19 +96,7 @@ export function bendingLaw(section: Section, material: Material, plane: BendingP
           derivative[3] = (rho * b3) / 12;
         }
       },
-      evaluateDrilled(t, chord, depthBelowTop, out, derivative) {
-        const s = drilledBendingSection(b, t, chord, depthBelowTop);
-        out[0] = E * s.secondMomentLateral;
-        out[1] = kappa * G * s.area;
-        out[2] = rho * s.area;
-        out[3] = rho * s.secondMomentLateral;
-        if (derivative) {
-          derivative[0] = E * s.secondMomentLateralSlope;
-          derivative[1] = kappa * G * s.areaSlope;
-          derivative[2] = rho * s.areaSlope;
-          derivative[3] = rho * s.secondMomentLateralSlope;
-        }
-      },
+      evaluateDrilled: drilledEvaluator(b, E, kappa * G, rho, 'lateral'),
     };
   }
   const p = sectionProperties(section);

@@ -255,6 +255,19 @@ describe('the whole instrument in the workbench', () => {
     await context.close();
   }, 120_000);
 
+  it('plans a bar on the 3D model when asked, in the workers, and says so', async () => {
+    const { context, page } = await freshPage();
+    await openView(page, 'keyboard');
+    // D4 has no bar set up: the plan chooses its blank, then designs it on the 3D model.
+    await page.getByLabel('From note').fill('D4');
+    await page.getByLabel('To note').fill('D4');
+    await page.locator('[data-testid="plan-solid"]').check();
+    await page.locator('[data-testid="plan-start"]').click();
+    const summary = page.locator('[data-testid="plan-summary"]');
+    await expect.poll(async () => ((await summary.count()) ? (await summary.innerText()).replace(/\s+/g, ' ') : ''), { timeout: 240_000, interval: 2_000 }).toMatch(/1 of 1 bars planned — 1 in tolerance, .* Designed and checked on the 3D model/);
+    await context.close();
+  }, 300_000);
+
   it('raised no page or console errors', () => {
     expect(problems).toEqual([]);
   });

@@ -84,6 +84,7 @@ export class BwKeyboardPlan extends LitElement {
   @state() private lowest = '';
   @state() private highest = '';
   @state() private keepLengths = true;
+  @state() private onSolid = false;
   private readonly run = new KeyboardPlanRunController(this);
 
   protected override willUpdate(changed: Map<string, unknown>): void {
@@ -98,7 +99,7 @@ export class BwKeyboardPlan extends LitElement {
 
   private start(fresh: boolean): void {
     if (!this.project) return;
-    void this.run.run.start(this.project, { lowest: this.lowest.trim(), highest: this.highest.trim(), keepBlankLengths: this.keepLengths }, { fresh, apply: applyThroughShell(this) });
+    void this.run.run.start(this.project, { lowest: this.lowest.trim(), highest: this.highest.trim(), keepBlankLengths: this.keepLengths }, { fresh, apply: applyThroughShell(this), theory: this.onSolid ? 'solid' : 'timoshenko' });
   }
 
   private plannedBars(): StoredKeyboardBar[] {
@@ -157,6 +158,7 @@ export class BwKeyboardPlan extends LitElement {
           ${this.fieldError('highest note')}
         </div>
         <label class="check"><input type="checkbox" .checked=${this.keepLengths} @change=${(e: Event) => (this.keepLengths = (e.target as HTMLInputElement).checked)} /> Keep the lengths of blanks already cut</label>
+        <label class="check" title="Each bar's arch is corrected by the 3D model of the bar until the 3D model meets the targets: closer to the real bar on deep arches, a few seconds a bar instead of a fraction of one."><input type="checkbox" data-testid="plan-solid" .checked=${this.onSolid} @change=${(e: Event) => (this.onSolid = (e.target as HTMLInputElement).checked)} /> Design on the 3D model (slower)</label>
         <button class="primary" ?disabled=${run.running} @click=${() => this.start(false)} data-testid="plan-start">${resumable ? 'Resume plan' : record ? 'Plan again (keeps bars that did not change)' : 'Plan every bar'}</button>
         ${record ? html`<button ?disabled=${run.running} @click=${() => this.start(true)}>Start over</button>` : nothing}
       </div>
@@ -164,7 +166,7 @@ export class BwKeyboardPlan extends LitElement {
       ${record && summary
         ? html`<p class="summary" data-testid="plan-summary">
               <strong>${record.plan.range.lowest}–${record.plan.range.highest}</strong>, stored ${formatWhen(record.planned_at)}: ${summary.designed} of ${summary.bars} bars planned —
-              ${summary.in_tolerance} in tolerance, ${summary.out_of_tolerance} out of tolerance, ${summary.infeasible} cannot be made on their blank${summary.complete ? '.' : '; not finished (resume to carry on).'}
+              ${summary.in_tolerance} in tolerance, ${summary.out_of_tolerance} out of tolerance, ${summary.infeasible} cannot be made on their blank${summary.complete ? '.' : '; not finished (resume to carry on).'}${record.plan.theory === 'solid' ? ' Designed and checked on the 3D model.' : ''}
             </p>
             <div class="actions">
               <button @click=${() => this.downloadCutList()} ?disabled=${summary.designed === 0} data-testid="cut-list-download">Download the cut list (CSV)</button>

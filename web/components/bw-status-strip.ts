@@ -119,7 +119,7 @@ export class BwStatusStrip extends LitElement {
         <dt><span class="label-long">Target </span>ratios</dt>
         <dd>${[...groups.entries()].map(([targets, names], index) => html`${index > 0 ? ' · ' : ''}${registers.length > 1 ? html`<span class="muted group-names">${names.join(', ')}</span> ` : ''}<span class="nowrap">${targets}</span>`)}</dd>
       </div>
-      <div><dt>Air</dt><dd>${project.instrument.air_temperature_c} °C</dd></div>
+      <div title="The playing temperature: every reading is shown at it and the tubes are sized for it"><dt>Playing</dt><dd>${project.instrument.air_temperature_c} °C</dd></div>
       <div><dt class="label-long">Units</dt><dd>mm · Hz · cents</dd></div>
       <div class=${save.kind} role="status" aria-live="polite"><dt>Saved</dt><dd data-testid="save-status">${save.text}</dd></div>
     </dl>`;

@@ -31,6 +31,8 @@ export interface PlanRunState {
 export interface PlanRunOptions {
   /** Ignore the stored plan and start over. */
   fresh?: boolean;
+  /** `solid`: design every bar on the 3D model (a few seconds a bar); default the line model. */
+  theory?: 'timoshenko' | 'solid';
   /** Applies an edit to the open project (the app shell's keeper); returns its outcome. */
   apply: (change: (project: ProjectFile) => ProjectFile) => EditOutcome;
 }
@@ -99,7 +101,8 @@ export class KeyboardPlanRun {
     }
     const stored = options.fresh ? undefined : project.keyboard_plan?.plan;
     const workers = planWorkerCount();
-    const key = stableHash({ project: project.id, keyboard, stored: stored ?? null });
+    const theory = options.theory ?? 'timoshenko';
+    const key = stableHash({ project: project.id, keyboard, stored: stored ?? null, theory });
     this.inputs = new Map([[key, { projectId: project.id, keyboard, apply: options.apply }]]);
     this.set({ kept: null, workers, message: '', problem: null });
     this.book.run({ subject, key }, async ({ signal, onProgress }) => {
@@ -108,6 +111,7 @@ export class KeyboardPlanRun {
       try {
         const plan = await planKeyboard(keyboard, {
           runner: pool,
+          theory,
           ...(stored ? { previous: { bars: stored.bars, advice: stored.advice } } : {}),
           signal,
           onProgress: (progress) => {
