@@ -28,3 +28,6 @@ export * from './handBias.ts';
 export * from './cutCautions.ts';
 export * from './nextCut.ts';
 export * from './nextCutSolid.ts';
+export * from './roundCheckpoints.ts';
+export * from './suspectReading.ts';
+export * from './readingRange.ts';
