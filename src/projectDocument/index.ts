@@ -6,6 +6,8 @@ export * from './projectFileTypes.ts';
 export { migrateProjectFile } from './projectFileMigrations.ts';
 export { formatFieldPath } from './projectFileIssues.ts';
 export * from './projectFileEdits.ts';
+export * from './projectCutEdits.ts';
+export * from './blankRanges.ts';
 export * from './projectSetup.ts';
 export * from './projectBarEdits.ts';
 export * from './projectResonators.ts';

@@ -4,6 +4,7 @@
 import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
 import { InputError } from '../fileFormats/InputError.ts';
 import { defaultShortenAt } from '../session/index.ts';
+import { checkBlankRanges } from './blankRanges.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
 
 /** Slack (mm) when checking that a shape never adds material to the one before it. */
@@ -114,6 +115,13 @@ export function withStationThickness(bar: BarFile, stationIndex: number, thickne
   return { ...structuredClone(bar), profile_mm: profile };
 }
 
+/** A shape entered by hand replaces any cut marked from the advice: its expectation, checkpoints and part note go. */
+function forgetMarkedCut(bar: ProjectBar): void {
+  delete bar.expected_hz;
+  delete bar.checkpoints;
+  delete bar.cut_note;
+}
+
 function touched(bar: ProjectBar, at: string): ProjectBar {
   return { ...bar, updated_at: at };
 }
@@ -125,6 +133,7 @@ function touched(bar: ProjectBar, at: string): ProjectBar {
  */
 export function setBarBlank(project: ProjectFile, barId: string, blank: BarFile, at: string): ProjectFile {
   const checked = parseBarFile(blank, 'blank');
+  checkBlankRanges(checked, 'blank');
   return replaceBar(project, barId, (bar) => {
     const blankOnly = structuredClone(checked);
     delete blankOnly.profile_mm;
@@ -158,7 +167,7 @@ export function setBarShape(project: ProjectFile, barId: string, shape: BarFile,
   return replaceBar(project, barId, (bar) => {
     const cut = isCut(bar.blank, checked);
     const next = touched({ ...bar, current: checked, state: bar.state === 'not-started' && cut ? 'rough' : bar.state }, at);
-    delete next.expected_hz;
+    forgetMarkedCut(next);
     return next;
   });
 }
@@ -189,7 +198,8 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
     if (options.source) step.source = options.source;
     const previous = bar.session.steps[bar.session.steps.length - 1];
     const cutSince = previous !== undefined && JSON.stringify(previous.bar) !== JSON.stringify(bar.current);
-    if (cutSince) step.cut = { made: bar.expected_hz ? 'as-planned' : 'as-done' };
+    // A cut marked in the tuning view (all or part of the advice) is recorded as planned, with the part done in its note.
+    if (cutSince) step.cut = { made: bar.expected_hz || bar.cut_note ? 'as-planned' : 'as-done', ...(bar.cut_note ? { note: bar.cut_note } : {}) };
     // A shortening since the last round is kept with the round: how much, and at which end.
     if (step.cut && previous && previous.bar.length_mm - bar.current.length_mm > 1e-6) {
       step.cut.shortened_mm = Math.round((previous.bar.length_mm - bar.current.length_mm) * 100) / 100;
@@ -204,16 +214,28 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
     if (predicted && predicted.length > 0 && predicted.every((hz) => Number.isFinite(hz) && hz > 0)) step.predicted_hz = [...predicted];
     const next = touched({ ...bar, session: { ...bar.session, steps: [...bar.session.steps, step] }, state: bar.state === 'done' ? 'done' : 'tuning', advice: null }, options.at);
     delete next.expected_hz;
-    delete next.checkpoints;
+    delete next.cut_note;
+    // The checkpoints stay with the bar (shown only while it is cut since its last round), so removing this round brings them back.
     return next;
   });
 }
 
-/** Removes the last recorded round (a mistaken entry); the bar's shape is left as it is. */
+/**
+ * Removes the last recorded round (a mistaken entry), undoing what recording it did: the bar's
+ * shape is left as it is, and a round that followed a cut marked in the tuning view gives back
+ * what the model expected of that cut (`expected_hz`, from the round's prediction) and the part
+ * of the cut made (`cut_note`), so entering the round again records it as it was.
+ */
 export function removeLastStep(project: ProjectFile, barId: string, at: string): ProjectFile {
   return replaceBar(project, barId, (bar) => {
-    if (bar.session.steps.length === 0) throw new InputError('round', 'steps', 'there is no round to remove');
-    return touched({ ...bar, session: { ...bar.session, steps: bar.session.steps.slice(0, -1) }, advice: null }, at);
+    const last = bar.session.steps[bar.session.steps.length - 1];
+    if (!last) throw new InputError('round', 'steps', 'there is no round to remove');
+    const next = touched({ ...bar, session: { ...bar.session, steps: bar.session.steps.slice(0, -1) }, advice: null }, at);
+    if (last.cut?.made === 'as-planned') {
+      if (last.cut.note) next.cut_note = last.cut.note;
+      else if (last.predicted_hz) next.expected_hz = [...last.predicted_hz];
+    }
+    return next;
   });
 }
 
@@ -223,25 +245,6 @@ export function setAdvice(project: ProjectFile, barId: string, advice: Omit<CutA
     const barAfter = parseBarFile(advice.bar_after, 'advice');
     assertNoMaterialAdded(bar.current, barAfter, 'advice');
     return touched({ ...bar, advice: { ...structuredClone(advice), bar_after: barAfter, from_steps: bar.session.steps.length, advised_at: at } }, at);
-  });
-}
-
-/**
- * The maker has made the advised cut: the bar's shape becomes the advice's `bar_after` (checked
- * to remove material only), the time `at` is kept as when the cut was finished (the bar rests
- * before it is struck, and the next round records it), and the advice's caliper checkpoints wait
- * for the readings. Marks the bar "done" when the advice said it was done.
- */
-export function markCutDone(project: ProjectFile, barId: string, at: string): ProjectFile {
-  return replaceBar(project, barId, (bar) => {
-    if (!bar.advice) throw new InputError('round', 'advice', 'there is no advised cut to mark as done');
-    if (bar.advice.status === 'stuck') throw new InputError('round', 'advice', 'the advice is that no cut reaches the target; nothing to mark');
-    if (bar.advice.status === 'done') return touched({ ...bar, state: 'done', advice: null }, at);
-    assertNoMaterialAdded(bar.current, bar.advice.bar_after, 'advice');
-    const next: ProjectBar = touched({ ...bar, current: structuredClone(bar.advice.bar_after), state: 'tuning', advice: null, expected_hz: [...bar.advice.predicted_hz], cut_finished_at: at }, at);
-    if (bar.advice.checkpoints && bar.advice.checkpoints.length > 0) next.checkpoints = structuredClone(bar.advice.checkpoints);
-    else delete next.checkpoints;
-    return next;
   });
 }
 
@@ -276,7 +279,7 @@ export function adoptDesign(project: ProjectFile, barId: string, at: string): Pr
     if (!bar.design) throw new InputError('plan', 'design', 'this bar has no plan yet');
     assertNoMaterialAdded(bar.current, bar.design.bar, 'plan');
     const next = touched({ ...bar, current: structuredClone(bar.design.bar), state: bar.state === 'not-started' ? 'rough' : bar.state }, at);
-    delete next.expected_hz;
+    forgetMarkedCut(next);
     return next;
   });
 }

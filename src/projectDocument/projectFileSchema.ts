@@ -192,6 +192,7 @@ const barSchema = z.looseObject({
   expected_hz: hzList.optional(),
   cut_finished_at: isoTime.optional(),
   checkpoints: checkpointsSchema.optional(),
+  cut_note: z.string({ error: 'must be text' }).max(400, { error: 'must be at most 400 characters' }).optional(),
   notes: z.string({ error: 'must be text' }),
   updated_at: isoTime,
 });

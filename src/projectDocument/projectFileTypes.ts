@@ -130,6 +130,8 @@ export interface ProjectBar {
   cut_finished_at?: string;
   /** The advised cut's caliper checkpoints, until the next round records what was measured there. */
   checkpoints?: CaliperCheckpoint[];
+  /** When only part of the advised cut was made: what was done (the next round's `cut.note`). */
+  cut_note?: string;
   notes: string;
   updated_at: string;
 }

@@ -28,4 +28,7 @@ export * from './handBias.ts';
 export * from './cutCautions.ts';
 export * from './nextCut.ts';
 export * from './nextCutSolid.ts';
+export * from './roundCheckpoints.ts';
+export * from './suspectReading.ts';
+export * from './readingRange.ts';
 export * from './lengthTrim.ts';

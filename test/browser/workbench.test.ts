@@ -75,7 +75,7 @@ describe('workbench in Chromium', () => {
     expect(after / before).toBeLessThan(1.18);
     // A rule broken is shown next to the field, and nothing changes.
     await length.fill('-4');
-    await expect.poll(() => page.locator('bw-number-field[name="length_mm"] .message').innerText()).toMatch(/Length must be greater than 0 mm/);
+    await expect.poll(() => page.locator('bw-number-field[name="length_mm"] .message').innerText()).toMatch(/Length must lie within 10–3000 mm/);
     await length.press('Enter');
     expect(await predictedFundamentalHz(page)).toBe(after);
     await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor();

@@ -2,7 +2,7 @@
 // change is sent up as a project edit; a rule the library refuses is shown beside its field.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { barMaterialFamily, materialPresets, setBarBlank, setBarLot, type BarFile } from '../../src/index.ts';
+import { barMaterialFamily, blankFieldRanges, materialPresets, setBarBlank, setBarLot, type BarFile, type BlankRangeField } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { sendEdit } from '../events.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
@@ -75,13 +75,16 @@ export class BwBlankForm extends LitElement {
   }
 
   private field(label: string, unit: string, path: string, value: number | undefined, hint = '') {
+    // Every size and material value refuses what no blank can be, with the range in the message.
+    const range = (blankFieldRanges as Record<string, readonly [number, number]>)[path as BlankRangeField];
     return html`<bw-number-field
       label=${label}
       unit=${unit}
       name=${path}
       .value=${value ?? null}
-      .min=${0}
-      exclusive-min
+      .min=${range ? range[0] : 0}
+      .max=${range ? range[1] : null}
+      ?exclusive-min=${!range}
       hint=${hint}
       error=${this.errors[path] ?? ''}
       @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setNumber(path, event.detail.value)}

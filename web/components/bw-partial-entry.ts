@@ -56,6 +56,8 @@ export class BwPartialEntry extends LitElement {
   @property({ type: Number }) count = 3;
   /** Target frequencies (shown as hints), Hz. */
   @property({ attribute: false }) targets: number[] = [];
+  /** The range each partial's reading may lie in for this piece, [lowest, highest] Hz (readingRangesHz); none where missing. */
+  @property({ attribute: false }) ranges: [number, number][] = [];
   /** Frequencies heard by listening, to fill in (null = not heard). */
   @property({ attribute: false }) filled: (number | null)[] | null = null;
   /** Where `filled` came from. */
@@ -92,11 +94,29 @@ export class BwPartialEntry extends LitElement {
       const value = heard ?? Number(text);
       if (ended) errors[index] = `Fill in ${partialName(index - 1).toLowerCase()} first, or clear this one`;
       else if (!Number.isFinite(value) || value <= 0) errors[index] = 'Must be a frequency in Hz greater than 0';
+      else if (this.outOfRange(index, value)) errors[index] = this.outOfRange(index, value);
       else if (index > 0 && value <= values[index - 1]!) errors[index] = `Must be higher than ${partialName(index - 1).toLowerCase()} (${formatHz(values[index - 1])} Hz)`;
       else values.push(value);
     }
     this.errors = errors;
     return errors.some(Boolean) ? null : values;
+  }
+
+  /** The refusal of a reading outside its range for this piece, with the range; '' when inside. */
+  private outOfRange(index: number, value: number): string {
+    const range = this.ranges[index];
+    if (!range || (value >= range[0] && value <= range[1])) return '';
+    return `${partialName(index)} must lie within ${formatHz(range[0])}–${formatHz(range[1])} Hz for this piece (a quarter to four times what its shape should sound)`;
+  }
+
+  /** Refuses a typed reading outside its range as soon as the field is left. */
+  private onBlur(index: number): void {
+    const text = (this.texts[index] ?? '').trim().replace(',', '.');
+    if (text === '') return;
+    const value = this.heard[index] ?? Number(text);
+    const errors = [...this.errors];
+    errors[index] = !Number.isFinite(value) || value <= 0 ? 'Must be a frequency in Hz greater than 0' : this.outOfRange(index, value);
+    this.errors = errors;
   }
 
   private submit(): void {
@@ -147,8 +167,9 @@ export class BwPartialEntry extends LitElement {
                 this.source = 'typed';
               }}
               @keydown=${(event: KeyboardEvent) => this.onKey(event, index)}
+              @blur=${() => this.onBlur(index)}
             />
-            <span class="hint" id=${`partial-${index}-hint`}>Hz · target ${formatHz(this.targets[index])}</span>
+            <span class="hint" id=${`partial-${index}-hint`}>Hz · target ${formatHz(this.targets[index])}${this.ranges[index] ? html` · takes ${formatHz(this.ranges[index]![0])}–${formatHz(this.ranges[index]![1])}` : nothing}</span>
             ${error ? html`<span class="message" role="alert">✕ ${error}</span>` : nothing}
           </div>`;
         })}

@@ -79,8 +79,10 @@ export class BwProjectMenu extends LitElement {
         box-shadow: 0 6px 20px rgb(0 0 0 / 0.18);
         padding: 0.8rem;
         display: grid;
+        grid-template-columns: minmax(0, 1fr);
         gap: 0.7rem;
         width: min(28rem, calc(100vw - 1.5rem));
+        box-sizing: border-box;
         max-height: calc(100vh - 5rem);
         overflow-y: auto;
       }
@@ -94,6 +96,7 @@ export class BwProjectMenu extends LitElement {
       .field select {
         width: 100%;
         min-width: 0;
+        box-sizing: border-box;
       }
       .pair {
         display: grid;

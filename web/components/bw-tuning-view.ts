@@ -5,24 +5,25 @@
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import {
-  barMaterialFamily,
   barLot,
   barLotPrior,
   barSession,
   barTargetHz,
   comparePartials,
-  cutInstructions,
   labelPartials,
   markCutDone,
+  undoMarkedCut,
+  type CutMade,
+  type MarkedCut,
   recordLotLearning,
   recordStep,
   registerOf,
+  readingRangesHz,
   setAdvice,
   setMinimumThickness,
   stableHash,
   tunedByLength,
   warmBarMinutes,
-  type CutInstructions,
   type NextCutResult,
   type ProjectBar,
   type ProjectFile,
@@ -32,27 +33,30 @@ import { solver } from '../worker/SolverClient.ts';
 import type { AnalyzeResult, NextCutAdvice } from '../worker/solverProtocol.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
-import { formatHz, formatMm, formatNumber, formatRatios, partialName } from '../format.ts';
+import { formatHz, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
 import type { RoundSubmitDetail } from './bw-partial-entry.ts';
 import type { ValueCommitDetail } from './bw-number-field.ts';
 import type { RoundConditions } from './bw-round-conditions.ts';
+import type { CutMadeDetail } from './bw-cut-made.ts';
 import './bw-bar-picker.ts';
 import './bw-partial-entry.ts';
 import './bw-cents-readout.ts';
 import './bw-profile-drawing.ts';
-import './bw-station-table.ts';
 import './bw-round-history.ts';
 import './bw-last-round.ts';
-import './bw-caliper-checkpoints.ts';
 import './bw-caliper-verdict.ts';
 import './bw-round-conditions.ts';
 import './bw-cautions.ts';
 import './bw-number-field.ts';
+import './bw-cut-advice.ts';
 import './bw-length-trim.ts';
 import './bw-shortening-switch.ts';
 
 /** The listening element, when its module is part of this build. */
 const listenModules = import.meta.glob('./bw-listen.ts');
+
+/** How long "I made this cut" can be taken back, minutes (or until the next round is recorded). */
+const undoMinutes = 10;
 
 /** Detail of the listening element's `partials-measured` event. */
 interface PartialsMeasuredDetail {
@@ -158,8 +162,9 @@ export class BwTuningView extends LitElement {
       return sent.ok ? undefined : sent.error.message;
     },
   });
-  private lastShape = '';
-  private adviceKey = '';
+  /** The last "I made this cut" (or "done"), takeable back for a while: the bar and lots before it, and until when (ms, page clock). */
+  @state() private marked: { before: MarkedCut; at: string; until: number } | null = null;
+  private markedTimer: ReturnType<typeof setTimeout> | undefined;
 
   override connectedCallback(): void {
     super.connectedCallback();
@@ -182,24 +187,37 @@ export class BwTuningView extends LitElement {
       }
       this.heard = null;
       this.roundError = '';
-      this.lastShape = '';
+      this.marked = null;
     }
     if (!bar || !this.project) return;
+    // Both pieces of work are asked for by what the bar is now (its shape and session), never by
+    // what the view asked for last: a removed and re-entered round is a new session to work from.
     // What the present shape should sound: from the calibrated model once the bar has rounds (one truth with the shape view).
-    const measuredBar = bar.session.steps.length > 0;
-    const key = `${JSON.stringify(bar.current)}:${measuredBar ? stableHash(this.advicePayload(this.project, bar)) : ''}`;
-    if (key !== this.lastShape) {
-      this.lastShape = key;
+    const key = this.predictionKey(this.project, bar);
+    if (this.prediction.state(bar.id).binding?.key !== key) {
+      const measuredBar = bar.session.steps.length > 0;
       const payload = { bar: bar.current, modes: Math.max(3, registerOf(this.project, bar).ratios.length), withShapes: false, withSensitivities: false, ...(measuredBar ? this.advicePayload(this.project, bar) : {}) };
       this.prediction.run({ subject: bar.id, key }, workerJob(solver, 'analyze', payload));
     }
     const steps = bar.session.steps.length;
-    const adviceKey = `${bar.id}:${steps}:${key}`;
     // Advice is for the bar as last measured: once it has been cut again, the next thing is a round.
-    if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps) && adviceKey !== this.adviceKey) {
-      this.adviceKey = adviceKey;
-      this.requestAdvice(bar);
+    if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps)) {
+      const working = this.advice.state(bar.id);
+      const asked = working.binding?.key === stableHash(this.advicePayload(this.project, bar));
+      // Asked for these very rounds: wait for it, or show its problem (with "Try again").
+      if (!asked || (!working.running && !working.problem)) this.requestAdvice(bar);
     }
+    if (this.marked && (this.marked.before.bar.id !== bar.id || this.marked.before.bar.session.steps.length !== steps)) this.marked = null;
+  }
+
+  override disconnectedCallback(): void {
+    super.disconnectedCallback();
+    clearTimeout(this.markedTimer);
+  }
+
+  /** The fingerprint of what a prediction of `bar` is worked out from: its shape and, once struck, its session and lot. */
+  private predictionKey(project: ProjectFile, bar: ProjectBar): string {
+    return `${JSON.stringify(bar.current)}:${bar.session.steps.length > 0 ? stableHash(this.advicePayload(project, bar)) : ''}`;
   }
 
   /** The air temperature of the bar's last round, if recorded, °C. */
@@ -243,9 +261,15 @@ export class BwTuningView extends LitElement {
     this.advice.run({ subject: bar.id, key: stableHash(payload) }, workerJob(solver, 'nextCut', { ...payload, learn: { bar: bar.id, note: bar.note } }));
   }
 
-  /** The prediction for the bar on screen. */
+  /** The latest prediction for the bar on screen (perhaps for its shape or rounds before the last change: for labels and drawings). */
   private get predicted(): AnalyzeResult | null {
     return this.prediction.state(this.barId).value;
+  }
+
+  /** The prediction worked out for the bar exactly as it is now (shape and rounds), or null while it is worked out. */
+  private predictedNow(bar: ProjectBar): AnalyzeResult | null {
+    const state = this.prediction.state(bar.id);
+    return this.project && state.valueBinding?.key === this.predictionKey(this.project, bar) ? state.value : null;
   }
 
   private expectedHz(): number[] {
@@ -277,7 +301,8 @@ export class BwTuningView extends LitElement {
 
   private onRound(event: CustomEvent<RoundSubmitDetail>): void {
     const bar = this.bar!;
-    const predicted = this.predicted?.analysis.bending.map((mode) => mode.hz).slice(0, event.detail.hz.length);
+    // What the model expected of this shape before it was struck: only a prediction made for the bar as it is now.
+    const predicted = this.predictedNow(bar)?.analysis.bending.map((mode) => mode.hz).slice(0, event.detail.hz.length);
     const options: Parameters<typeof recordStep>[3] = { at: new Date().toISOString(), source: event.detail.source };
     if (predicted) options.predictedHz = predicted;
     if (this.conditions.airC !== null) options.airTemperatureC = this.conditions.airC;
@@ -294,16 +319,40 @@ export class BwTuningView extends LitElement {
    * The advised cut is made (or the bar is done). A finished bar cut from a named lot teaches it:
    * what its rounds learnt (carried by the done advice) becomes the next bar's starting point.
    */
-  private markDone(): void {
+  private markDone(made: CutMade = {}): void {
     const at = new Date().toISOString();
     const bar = this.bar;
-    const lot = bar ? barLot(bar) : undefined;
-    const record = bar?.advice?.status === 'done' ? bar.advice.lot_record : undefined;
+    if (!bar || !this.project) return;
+    const lot = barLot(bar);
+    const record = bar.advice?.status === 'done' ? bar.advice.lot_record : undefined;
+    const before: MarkedCut = { bar: structuredClone(bar), lots: structuredClone(this.project.lots) };
     const outcome = sendEdit(this, (project) => {
-      const marked = markCutDone(project, this.barId, at);
+      const marked = markCutDone(project, this.barId, at, made);
       return lot && record ? recordLotLearning(marked, lot, { ...record, learnt_at: at }) : marked;
     });
     this.actionError = outcome.ok ? '' : outcome.error.message;
+    if (outcome.ok) {
+      this.marked = { before, at, until: Date.now() + undoMinutes * 60_000 };
+      clearTimeout(this.markedTimer);
+      this.markedTimer = setTimeout(() => (this.marked = null), undoMinutes * 60_000);
+    }
+  }
+
+  /** Takes back the last mark (the bar's shape, advice and state, and what its lot learnt). */
+  private undoMark(): void {
+    const marked = this.marked;
+    if (!marked) return;
+    const outcome = sendEdit(this, (project) => undoMarkedCut(project, marked.before, new Date().toISOString()));
+    this.actionError = outcome.ok ? '' : outcome.error.message;
+    if (outcome.ok) this.marked = null;
+  }
+
+  private renderUndo() {
+    const marked = this.marked;
+    if (!marked || Date.now() > marked.until) return nothing;
+    const what = marked.before.bar.advice?.status === 'done' ? 'The bar was marked done' : 'The cut was marked as made';
+    return html`<p class="undo row" role="status" data-testid="undo-cut">${what} at ${formatWhen(marked.at)}. <button @click=${this.undoMark} data-testid="undo-cut-button">Undo</button>
+      <span class="muted">(for ${undoMinutes} minutes, until the next round)</span></p>`;
   }
 
   private setLimit(value: number): void {
@@ -353,11 +402,7 @@ export class BwTuningView extends LitElement {
             : nothing}
       </section>`;
     }
-    const plan: CutInstructions = (advice as { cut?: CutInstructions | null }).cut ?? cutInstructions(bar.current, advice.bar_after);
-    const extras = advice as { cautions?: string[]; warnings?: string[]; wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
-    // Where the temperature coefficient comes from is a note on the readings, not a check before cutting.
-    const checks = (extras.warnings ?? []).filter((warning) => !warning.startsWith('temperature:'));
-    const predicted = comparePartials(advice.predicted_hz, targets, register.tolerance_cents);
+    const extras = advice as { wait_minutes?: number; temperature?: NextCutResult['temperature']; calibration?: NextCutResult['calibration'] };
     const calibrated = advice.calibrated_material && !('preset' in advice.calibrated_material) ? advice.calibrated_material : null;
     return html`<section class="panel" aria-labelledby="advice-heading">
       <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
@@ -365,23 +410,9 @@ export class BwTuningView extends LitElement {
       ${advice.status === 'done'
         ? html`<p class="advice-status in-tune">● All partials are within tolerance: no cut needed.</p>
             ${extras.wait_minutes && extras.wait_minutes > 0 ? html`<p class="problem" role="status" data-testid="still-warm">The last round was struck while the bar was still warm from the cut (it reads flat): strike it again in ${extras.wait_minutes} min before marking it done.</p>` : nothing}
-            <button class="primary" @click=${this.markDone}>Mark the bar done</button>`
-        : advice.status === 'stuck'
-          ? html`<p class="advice-status problem">No removal can reach the target from here.</p><p>${advice.reason ?? ''}</p>`
-          : html`<p class="advice-status">Take off up to ${formatMm(plan.max_depth_mm, 2)} mm${plan.shortening_mm > 0.005 ? ` and shorten ${formatMm(plan.shortening_mm / 2)} mm each end` : ''}, shaded on the drawing.</p>
-              ${checks.length > 0 ? html`<div class="problem" role="status"><strong>⚠ Check before cutting:</strong><ul>${checks.map((warning) => html`<li>${warning}</li>`)}</ul></div>` : nothing}
-              <bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>
-              <bw-profile-drawing .bar=${bar.current} .cutTo=${advice.bar_after} .cut=${plan} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}></bw-profile-drawing>
-              <bw-station-table .plan=${plan}></bw-station-table>
-              <bw-caliper-checkpoints .points=${advice.checkpoints ?? []}></bw-caliper-checkpoints>
-              <h4>Expected after this cut</h4>
-              <div class="after">
-                ${predicted.map((standing, index) => html`<bw-cents-readout compact label=${partialName(index)} .cents=${standing.cents} .verdict=${standing.verdict} .hz=${standing.hz} .targetHz=${standing.targetHz}></bw-cents-readout>`)}
-              </div>
-              <div class="row" style="margin-top: 0.8rem">
-                <button class="primary" @click=${this.markDone} data-testid="mark-cut-done">I made this cut</button>
-                <span class="muted">Then strike the bar and record the next round. Cut less if unsure: the next round corrects it.</span>
-              </div>`}
+            <button class="primary" @click=${() => this.markDone()}>Mark the bar done</button>`
+        : html`<bw-cut-advice .project=${project} .bar=${bar} .advice=${advice} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}
+            @cut-made=${(event: CustomEvent<CutMadeDetail>) => this.markDone(event.detail.percent < 100 ? { percent: event.detail.percent } : {})}></bw-cut-advice>`}
       ${calibrated
         ? html`<details>
             <summary>What the rounds taught about this blank</summary>
@@ -440,7 +471,7 @@ export class BwTuningView extends LitElement {
                 ? html`<bw-listen .targetHz=${targets} .expected=${this.expectedModes()} .toleranceCents=${register.tolerance_cents} a4-hz=${project.instrument.a4_hz} @partials-measured=${this.onHeard}></bw-listen>`
                 : html`<p class="unavailable">Listening (microphone or recording) is not available yet: type the partials below.</p>`}
             </div>
-            <bw-partial-entry .count=${register.ratios.length} .targets=${targets} .filled=${this.heard} .filledFrom=${this.heardFrom} @round-submit=${this.onRound}></bw-partial-entry>
+            <bw-partial-entry .count=${register.ratios.length} .targets=${targets} .ranges=${readingRangesHz(this.expectedHz().slice(0, register.ratios.length))} .filled=${this.heard} .filledFrom=${this.heardFrom} @round-submit=${this.onRound}></bw-partial-entry>
             <bw-round-conditions
               .checkpoints=${this.cutSinceLastRound(bar) ? (bar.checkpoints ?? null) : null}
               finished-at=${this.restingSince(bar)}
@@ -452,7 +483,7 @@ export class BwTuningView extends LitElement {
             ${this.roundError ? html`<p class="problem" role="alert">${this.roundError}</p>` : nothing}
           </section>
         </div>
-        <div class="stack">${this.renderAdvice()}</div>
+        <div class="stack">${this.renderUndo()}${this.renderAdvice()}</div>
         ${this.renderHistory()}
       </div>`;
   }
