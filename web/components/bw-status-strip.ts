@@ -44,6 +44,9 @@ export class BwStatusStrip extends LitElement {
         white-space: nowrap;
       }
       /* Many registers: their targets stay on one line (all of them in the hover text). */
+      .label-short {
+        display: none;
+      }
       .ratios dd {
         max-width: 26rem;
         overflow: hidden;
@@ -78,6 +81,9 @@ export class BwStatusStrip extends LitElement {
         .group-names,
         .label-long {
           display: none;
+        }
+        .label-short {
+          display: inline;
         }
         .ratios dd {
           max-width: 7.5rem;
@@ -119,7 +125,7 @@ export class BwStatusStrip extends LitElement {
         <dt><span class="label-long">Target </span>ratios</dt>
         <dd>${[...groups.entries()].map(([targets, names], index) => html`${index > 0 ? ' · ' : ''}${registers.length > 1 ? html`<span class="muted group-names">${names.join(', ')}</span> ` : ''}<span class="nowrap">${targets}</span>`)}</dd>
       </div>
-      <div title="The playing temperature: every reading is shown at it and the tubes are sized for it"><dt>Playing</dt><dd>${project.instrument.air_temperature_c} °C</dd></div>
+      <div title="The playing temperature: every reading is shown at it and the tubes are sized for it"><dt><span class="label-long">Playing</span><span class="label-short">at</span></dt><dd>${project.instrument.air_temperature_c} °C</dd></div>
       <div><dt class="label-long">Units</dt><dd>mm · Hz · cents</dd></div>
       <div class=${save.kind} role="status" aria-live="polite"><dt>Saved</dt><dd data-testid="save-status">${save.text}</dd></div>
     </dl>`;
