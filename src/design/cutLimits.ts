@@ -118,7 +118,7 @@ export function resolveCutLimits(input: CutLimitsInput | undefined, blank: CutBl
 }
 
 /** Cut limits back in mm for JSON output (the inverse of resolveCutLimits, every field filled). */
-export function cutLimitsToInput(limits: CutLimits): Required<Omit<CutLimitsInput, 'uncut_end_mm'>> {
+export function cutLimitsToInput(limits: CutLimits): Required<Omit<CutLimitsInput, 'uncut_end_mm' | 'shorten_at'>> {
   const round = (metres: number): number => Math.round((metres / mm) * 1e6) / 1e6;
   return {
     min_thickness_mm: round(limits.minThickness),

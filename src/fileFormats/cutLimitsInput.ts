@@ -15,4 +15,10 @@ export interface CutLimitsInput {
   min_tool_radius_mm?: number;
   allow_shortening?: boolean;
   max_shortening_mm?: number;
+  /**
+   * Where a shortening is taken (barwright's addition, sessions only): `"free-end"` for a chime hung
+   * from one end, `"both-ends"` (equally) for a bar on cords. Absent: free end for a tube or rod,
+   * both ends for a bar.
+   */
+  shorten_at?: 'free-end' | 'both-ends';
 }

@@ -74,7 +74,7 @@ function parseTarget(source: string, value: unknown): SessionLogTarget {
   return target;
 }
 
-const limitKeys = ['min_thickness_mm', 'uncut_end_mm', 'uncut_left_mm', 'uncut_right_mm', 'max_slope', 'min_tool_radius_mm', 'allow_shortening', 'max_shortening_mm'] as const;
+const limitKeys = ['min_thickness_mm', 'uncut_end_mm', 'uncut_left_mm', 'uncut_right_mm', 'max_slope', 'min_tool_radius_mm', 'allow_shortening', 'max_shortening_mm', 'shorten_at'] as const;
 
 /** Copies the known limit fields (types are checked later against the blank by resolveCutLimits). */
 function parseLimits(source: string, value: unknown): CutLimitsInput {
@@ -86,6 +86,8 @@ function parseLimits(source: string, value: unknown): CutLimitsInput {
     if (item === undefined) continue;
     if (key === 'allow_shortening') {
       if (typeof item !== 'boolean') throw new InputError(source, 'limits.allow_shortening', 'must be true or false');
+    } else if (key === 'shorten_at') {
+      if (item !== 'free-end' && item !== 'both-ends') throw new InputError(source, 'limits.shorten_at', `must be "free-end" (a hung chime) or "both-ends" (a bar on cords), got ${JSON.stringify(item)}`);
     } else finiteNumber(source, `limits.${key}`, item, key === 'max_slope' ? 'rise over run' : 'mm');
     limits[key] = item;
   }

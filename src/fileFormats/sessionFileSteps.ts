@@ -88,6 +88,15 @@ export function parseSessionLogStep(source: string, field: string, value: unknow
       throw new InputError(source, `${field}.cut.made`, `must be "as-planned" (the bar recorded is the plan) or "as-done" (the shape was measured after cutting), got ${JSON.stringify(cut.made)}`);
     if (cut.note !== undefined && typeof cut.note !== 'string') throw new InputError(source, `${field}.cut.note`, 'must be text');
     step.cut = typeof cut.note === 'string' ? { made: cut.made, note: cut.note } : { made: cut.made };
+    if (cut.shortened_mm !== undefined) {
+      if (typeof cut.shortened_mm !== 'number' || !Number.isFinite(cut.shortened_mm) || cut.shortened_mm <= 0 || cut.shortened_mm > 1000)
+        throw new InputError(source, `${field}.cut.shortened_mm`, `must be a length greater than 0 and at most 1000 mm (got ${JSON.stringify(cut.shortened_mm)})`);
+      step.cut.shortened_mm = cut.shortened_mm;
+    }
+    if (cut.shortened_at !== undefined) {
+      if (cut.shortened_at !== 'free-end' && cut.shortened_at !== 'both-ends') throw new InputError(source, `${field}.cut.shortened_at`, `must be "free-end" or "both-ends" (got ${JSON.stringify(cut.shortened_at)})`);
+      step.cut.shortened_at = cut.shortened_at;
+    }
   }
   if (value.recorded_at !== undefined) step.recorded_at = parseTime(source, `${field}.recorded_at`, value.recorded_at);
   if (value.cut_finished_at !== undefined) {

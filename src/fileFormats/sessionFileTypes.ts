@@ -23,6 +23,10 @@ export type SessionCutRecord = 'as-planned' | 'as-done';
 export interface SessionLogCut {
   made: SessionCutRecord;
   note?: string;
+  /** Length taken off since the previous step, mm (barwright's addition: a piece tuned by trimming). */
+  shortened_mm?: number;
+  /** Where that length was taken: the free end of a hung chime, or half from each end. */
+  shortened_at?: 'free-end' | 'both-ends';
 }
 
 /** One measured round of a session. */

@@ -18,4 +18,7 @@ export * from './projectKeyboardPlanEdits.ts';
 export * from './storePlanInProject.ts';
 export * from './projectSessionContext.ts';
 export * from './projectTemperatureDrift.ts';
+export * from './projectLengthTrim.ts';
+export * from './projectChimeSet.ts';
+export * from './projectChimeSetPieces.ts';
 export * from './projectWorkshop.ts';

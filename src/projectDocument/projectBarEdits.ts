@@ -7,16 +7,14 @@ import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
 import { midiToNoteName, parseNote } from '../fileFormats/noteName.ts';
 import { materialFamily } from '../material/materialFamily.ts';
 import { materialFromFile } from '../modes/BarModel.ts';
-import { noteToHz } from '../pitch/noteToHz.ts';
 import { syncSessionTargets } from './projectFileEdits.ts';
 import { checkPlayableNote } from './projectSetup.ts';
+import { chimePieceBlank, projectChimeSet } from './projectChimeSet.ts';
 import type { ProjectBar, ProjectFile, Register } from './projectFileTypes.ts';
 
 /** Longest bar name, characters. */
 export const barNameLimit = 80;
 
-/** β₁L of a free–free beam's first bending mode (root of cos βL cosh βL = 1; Blevins 1979, table 8-1). */
-const firstFreeFreeRoot = 4.73004074486;
 
 /** The name a bar goes by: its label, or its note when it has none. */
 export function barName(bar: ProjectBar): string {
@@ -71,41 +69,26 @@ export interface BlankSuggestion {
   rule: string;
 }
 
-/**
- * Length (mm) of a uniform free–free tube or rod of this section and material whose first
- * bending mode is `hz` (Euler–Bernoulli closed form, Blevins 1979, table 8-1):
- * f = (β₁L)² / (2π L²) · √(E I / (ρ A)), with I/A = (r_o² + r_i²)/4 for a tube, r²/4 for a rod.
- */
-function uniformPieceLengthMm(blank: BarFile, hz: number): number {
-  const material = materialFromFile(blank.material);
-  const section = blank.section;
-  const metres = 1e-3;
-  const radiusOfGyrationSquared =
-    section.shape === 'tube'
-      ? ((section.outer_diameter_mm / 2) ** 2 + (section.outer_diameter_mm / 2 - section.wall_mm) ** 2) / 4
-      : section.shape === 'round'
-        ? (section.diameter_mm / 2) ** 2 / 4
-        : section.thickness_mm ** 2 / 12;
-  const wave = Math.sqrt((material.youngModulus * radiusOfGyrationSquared * metres * metres) / material.density);
-  return (firstFreeFreeRoot * Math.sqrt(wave / (2 * Math.PI * hz))) / metres;
-}
 
 /** Starting section of a keyboard bar when the register has no bar yet (common practice, from memory). */
 const firstKeyboardBlank = { width_mm: 50, thickness_mm: 20, lengthAtMiddleC_mm: 330 } as const;
-/** Starting chime stock when the register has none yet (a common 1 in tube, 25.4 × 1.6 mm). */
-const firstChimeSection = { shape: 'tube', outer_diameter_mm: 25.4, wall_mm: 1.6 } as const;
 
 /**
  * A blank for a new bar of `note` in `register`: from the nearest bar of that register, the same
  * section and material with the length scaled by 2^(−semitones/24) (f ∝ 1/L² for one section and
- * material: a uniform beam's closed form), rounded to whole mm. With no bar in the register yet: a
- * chime gets the length of a uniform tube sounding the note (Euler–Bernoulli closed form; the
- * session trims it), a keyboard bar a 50 × 20 mm blank 330 mm long at C4, halving every two
- * octaves (a starting point, common practice — plan the bar to get its real length).
+ * material: a uniform beam's closed form), rounded to whole mm. With no bar in the register yet, a
+ * keyboard bar gets a 50 × 20 mm blank 330 mm long at C4, halving every two octaves (a starting
+ * point, common practice — plan the bar to get its real length). A chime is cut from the project's
+ * chime set at the set's length for the note (chimeLengthMm: the one computation of a chime's
+ * length, which the set view shows too).
  */
 export function suggestBlank(project: ProjectFile, note: string, registerId: string): BlankSuggestion {
   const midi = checkPlayableNote(note, 'bar', 'note').midi;
   const register = registerById(project, registerId);
+  if (register.family === 'chime') {
+    const set = projectChimeSet(project);
+    return { blank: chimePieceBlank(set, note), scaledFrom: null, rule: `the chime set's length for ${note} (its stock, ${set.tune === 'strike' ? 'strike note' : 'fundamental'} tuned)` };
+  }
   const neighbours = project.bars.filter((bar) => bar.register === register.id).map((bar) => ({ bar, distance: Math.abs(parseNote(bar.note).midi - midi), midi: parseNote(bar.note).midi }));
   neighbours.sort((a, b) => a.distance - b.distance || a.midi - b.midi);
   const nearest = neighbours[0];
@@ -120,11 +103,6 @@ export function suggestBlank(project: ProjectFile, note: string, registerId: str
     return { blank, scaledFrom: nearest.bar.note, rule: `${nearest.bar.note}'s blank, its length × 2^(${exponent}) (a bar of one section sounds ∝ 1/length²)` };
   }
   const material = structuredClone(project.instrument.material);
-  if (register.family === 'chime') {
-    const blank: BarFile = { format: 'barwright.bar', version: 1, label: note, length_mm: 100, section: { ...firstChimeSection }, material };
-    blank.length_mm = Math.round(uniformPieceLengthMm(blank, noteToHz(note, project.instrument.a4_hz, 'bar', 'note')) * 10) / 10;
-    return { blank, scaledFrom: null, rule: 'a uniform tube sounding the note (Euler–Bernoulli)' };
-  }
   const length = Math.round(firstKeyboardBlank.lengthAtMiddleC_mm * 2 ** (-(midi - 60) / 24));
   return {
     blank: { format: 'barwright.bar', version: 1, label: note, length_mm: length, section: { shape: 'rect', width_mm: firstKeyboardBlank.width_mm, thickness_mm: firstKeyboardBlank.thickness_mm }, material },

@@ -1,6 +1,7 @@
 // Reading, validating and writing barwright project files (`*.project.json`).
 import { InputError } from '../fileFormats/InputError.ts';
 import { migrateProjectFile } from './projectFileMigrations.ts';
+import { chimePieces, chimeSetFromPieces } from './projectChimeSet.ts';
 import { barFileSchema, projectFileSchema, sessionFileSchema } from './projectFileSchema.ts';
 import { issuesToInputErrors, plainRules } from './projectFileIssues.ts';
 import type { BarFile } from '../fileFormats/barFile.ts';
@@ -34,7 +35,10 @@ export function checkProjectFile(value: unknown, source: string): ProjectFileChe
   }
   const result = projectFileSchema.safeParse(migrated, { error: plainRules });
   if (!result.success) return { ok: false, errors: issuesToInputErrors(source, result.error.issues).map((error) => withBarNote(error, migrated)) };
-  return { ok: true, project: result.data as ProjectFile };
+  const project = result.data as ProjectFile;
+  // A file from before the chime set was kept in the project gets one from its chime pieces.
+  if (project.chime_set === undefined && chimePieces(project).length > 0) project.chime_set = chimeSetFromPieces(project);
+  return { ok: true, project };
 }
 
 /**

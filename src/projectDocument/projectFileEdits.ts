@@ -3,6 +3,7 @@
 // instrument. Times are passed in (ISO 8601) so the edits stay pure and testable.
 import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
 import { InputError } from '../fileFormats/InputError.ts';
+import { defaultShortenAt } from '../session/index.ts';
 import { checkBlankRanges } from './blankRanges.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
 
@@ -199,6 +200,11 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
     const cutSince = previous !== undefined && JSON.stringify(previous.bar) !== JSON.stringify(bar.current);
     // A cut marked in the tuning view (all or part of the advice) is recorded as planned, with the part done in its note.
     if (cutSince) step.cut = { made: bar.expected_hz || bar.cut_note ? 'as-planned' : 'as-done', ...(bar.cut_note ? { note: bar.cut_note } : {}) };
+    // A shortening since the last round is kept with the round: how much, and at which end.
+    if (step.cut && previous && previous.bar.length_mm - bar.current.length_mm > 1e-6) {
+      step.cut.shortened_mm = Math.round((previous.bar.length_mm - bar.current.length_mm) * 100) / 100;
+      step.cut.shortened_at = bar.session.limits.shorten_at ?? defaultShortenAt(bar.current);
+    }
     // The first round after a cut records when the cut was finished (a re-strike inherits it in the log).
     if (cutSince && bar.cut_finished_at !== undefined && Date.parse(bar.cut_finished_at) <= Date.parse(options.at) && (!previous?.recorded_at || Date.parse(bar.cut_finished_at) >= Date.parse(previous.recorded_at)))
       step.cut_finished_at = bar.cut_finished_at;

@@ -8,6 +8,7 @@ import { parseSessionFile } from '../fileFormats/sessionFile.ts';
 import { isInputError } from '../fileFormats/InputError.ts';
 import { keyboardPlanRecordSchema } from './projectKeyboardPlan.ts';
 import { parseLotFile } from '../fileFormats/lotFile.ts';
+import { parseChimeSetFile } from '../fileFormats/chimeSetFile.ts';
 import { parseWorkshop } from '../fileFormats/workshopFile.ts';
 
 /** A finite number > 0 with a unit in the rule. */
@@ -156,6 +157,17 @@ const lotsSchema = z.unknown().transform((value, context) => {
   }
 });
 
+/** The project's chime set, checked by the chime-set file's parser (the CLI's `*.chimes.json`), so it exports as a chime-set file. */
+const chimeSetSchema = z.unknown().transform((value, context) => {
+  try {
+    return parseChimeSetFile(value, 'chime_set');
+  } catch (error) {
+    if (!isInputError(error)) throw error;
+    context.addIssue({ code: 'custom', path: fieldToPath(error.field).filter((key) => key !== 'chime set'), message: error.rule, input: value });
+    return z.NEVER;
+  }
+});
+
 /** The project's workshop, checked by the workshop file's parser (the CLI's `--workshop`), so it exports as a workshop file. */
 const workshopSchema = z.unknown().transform((value, context) => {
   try {
@@ -208,6 +220,7 @@ export const projectFileSchema = z
     bars: z.array(barSchema, { error: 'must be a list of bars' }),
     keyboard_plan: keyboardPlanRecordSchema.optional(),
     lots: lotsSchema.optional(),
+    chime_set: chimeSetSchema.optional(),
     workshop: workshopSchema.optional(),
   })
   .superRefine((project, context) => {

@@ -5,6 +5,7 @@
 
 import type { BarFile, BarFileMaterial } from '../fileFormats/barFile.ts';
 import type { LotBarRecord } from '../fileFormats/lotFile.ts';
+import type { ChimeSetFile } from '../fileFormats/chimeSetFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
 import type { Workshop } from '../fileFormats/workshopFile.ts';
 
@@ -30,7 +31,14 @@ export interface SessionStep {
   /** How the partials were taken: typed in, heard by the microphone, or read from a file. */
   source?: 'typed' | 'microphone' | 'file';
   /** The cut made since the previous step: as advised (`as-planned`) or entered by hand (`as-done`). */
-  cut?: { made: 'as-planned' | 'as-done'; note?: string };
+  cut?: {
+    made: 'as-planned' | 'as-done';
+    note?: string;
+    /** Length taken off since the previous round, mm (a piece tuned by trimming; barwright's addition). */
+    shortened_mm?: number;
+    /** Where it was taken: the free end (a hung chime) or half from each end (a bar on cords). */
+    shortened_at?: 'free-end' | 'both-ends';
+  };
   /** Air temperature when the bar was struck, °C. */
   air_temperature_c?: number;
   /** When the cut before this round was finished (ISO 8601). */
@@ -50,7 +58,15 @@ export interface SessionFile {
   format: 'barwright.session';
   version: 1;
   target: SessionTarget;
-  limits: { min_thickness_mm: number };
+  limits: {
+    min_thickness_mm: number;
+    /** Whether advice may shorten the piece (raises every partial; costs length). Default false; a tube or rod is tuned by length alone. */
+    allow_shortening?: boolean;
+    /** Most length that may be taken off in all, mm (with allow_shortening). */
+    max_shortening_mm?: number;
+    /** Where a shortening is taken: the free end (a hung chime) or half from each end (a bar on cords). Default: free end for a tube or rod, both ends for a bar. */
+    shorten_at?: 'free-end' | 'both-ends';
+  };
   steps: SessionStep[];
 }
 
@@ -155,6 +171,11 @@ export interface ProjectFile {
   keyboard_plan?: KeyboardPlanRecord;
   /** What each lot (board or batch) of wood taught, bar by bar, from its finished bars (optional; by lot name). */
   lots?: Record<string, { bars: LotBarRecord[] }>;
+  /**
+   * The chime set (optional): stock, notes and tuned pitch, as a chime-set file (`barwright chime`
+   * reads it as is). Its A4 is the instrument's. Files without it get one from their chime pieces when read.
+   */
+  chime_set?: ChimeSetFile;
   /**
    * The workshop the bars are cut in: its tools set the designer's limits for every bar and plan
    * of the project (the same section as a keyboard file's `workshop`). Absent: barwright's default

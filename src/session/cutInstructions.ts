@@ -87,7 +87,8 @@ export function cutInstructions(now: BarFile, after: BarFile): CutInstructions {
 }
 
 function sketchOf(now: BarFile, after: BarFile, offset: number, maxDepth: number): string[] {
-  if (now.section.shape !== 'rect') return [`${now.section.shape} section: no undercut${offset > 0 ? `; trim ${round(offset, 2)} mm from each end` : ''}`];
+  // A tube or rod hangs from one end and is trimmed at its free end (the same pitch as half from each end on a uniform piece).
+  if (now.section.shape !== 'rect') return [`${now.section.shape} section: no undercut${offset > 0 ? `; trim ${round(2 * offset, 2)} mm off the free end (or ${round(offset, 2)} mm from each end on cords)` : ''}`];
   const blank = now.section.thickness_mm;
   const lines: string[] = [];
   const columnX = (c: number): number => ((c + 0.5) / sketchColumns) * now.length_mm;

@@ -31,3 +31,4 @@ export * from './nextCutSolid.ts';
 export * from './roundCheckpoints.ts';
 export * from './suspectReading.ts';
 export * from './readingRange.ts';
+export * from './lengthTrim.ts';

@@ -16,6 +16,9 @@ export interface StuckInput {
   readonly plan: PlannedCut;
 }
 
+/** How a maker allows shortening: the workbench's switch, or the session file's limit. */
+const allowShorteningHint = 'allow shortening with the switch "Advice may shorten the bar" (in a session file: "allow_shortening": true in its limits)';
+
 function signed(value: number): string {
   return `${value >= 0 ? '+' : ''}${value.toFixed(1)}`;
 }
@@ -42,8 +45,10 @@ export function stuckReason(input: StuckInput): string {
   if (flatFundamental) {
     const rate = centsPerMmShortening(input);
     const needed = rate > 0 ? -errorCents[0]! / rate : 0;
-    const trim = `shortening by about ${needed.toFixed(1)} mm (${(needed / 2).toFixed(1)} mm from each end; ${rate.toFixed(1)} cents per mm) would bring the fundamental up`;
-    if (!limits.allowShortening) return `the fundamental is ${signed(errorCents[0]!)} cents, flat beyond its tolerance, and removal in the arch only lowers it: ${trim}; allow it with "allow_shortening": true in the session's limits (${standing})`;
+    // A tube or rod hangs from one end and is trimmed at its free end; a bar on cords at both ends.
+    const where = model.section.shape === 'rect' ? `${(needed / 2).toFixed(1)} mm from each end` : 'off the free end';
+    const trim = `shortening by about ${needed.toFixed(1)} mm (${where}; ${rate.toFixed(1)} cents per mm) would bring the fundamental up`;
+    if (!limits.allowShortening) return `the fundamental is ${signed(errorCents[0]!)} cents, flat beyond its tolerance, and removal in the arch only lowers it: ${trim}; ${allowShorteningHint} (${standing})`;
     if (limits.maxShortening <= 1e-6) return `the fundamental is ${signed(errorCents[0]!)} cents, flat, and the shortening allowance (max_shortening_mm) is used up: ${trim} (${standing})`;
   }
   if (model.section.shape !== 'rect') {
@@ -57,7 +62,7 @@ export function stuckReason(input: StuckInput): string {
   const flatOvertone = errorCents.findIndex((e, n) => n > 0 && e < -toleranceCents[n]!);
   if (flatOvertone > 0) {
     const n = flatOvertone;
-    return `partial ${n + 1} is ${signed(errorCents[n]!)} cents, flat beyond its tolerance, and no cut within the limits raises it without taking the others down with it (${standing}). Shortening raises every partial; undercutting the middle after it lowers the fundamental most${limits.allowShortening ? '' : ' (shortening needs "allow_shortening": true in the session\'s limits)'}; or this blank cannot reach these ratios`;
+    return `partial ${n + 1} is ${signed(errorCents[n]!)} cents, flat beyond its tolerance, and no cut within the limits raises it without taking the others down with it (${standing}). Shortening raises every partial; undercutting the middle after it lowers the fundamental most${limits.allowShortening ? '' : ` (${allowShorteningHint})`}; or this blank cannot reach these ratios`;
   }
   if (plan.binding.includes('overshoot')) {
     return `no cut within the limits moves the sharp partials without risking another going flat beyond its tolerance (${standing})${limits.allowShortening ? '' : '; shortening (allow_shortening) then re-cutting the arch may recover it'}`;

@@ -224,7 +224,7 @@ describe('tuning sessions in the workbench', () => {
     // Struck on target (E5 at A4 = 442 Hz: 442 · 2^(7/12) = 662.25 Hz): the advice is that no cut is needed.
     await goTo(page, 'tuning/chime-E5');
     await recordRound(page, [Number((442 * 2 ** (7 / 12)).toFixed(1))]);
-    const finish = page.getByRole('button', { name: 'Mark the bar done' });
+    const finish = page.getByRole('button', { name: 'Mark the piece done' });
     await finish.waitFor({ timeout: 60_000 });
     await finish.click();
     await saved(page);

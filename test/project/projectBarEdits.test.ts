@@ -4,6 +4,8 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
+  chimeLengthMm,
+  projectChimeSet,
   InputError,
   addBar,
   addBarsFromPlan,
@@ -128,13 +130,18 @@ describe('adding bars', () => {
     expect(Math.abs(up.blank.length_mm - exact.length_mm)).toBeLessThanOrEqual(0.5);
   });
 
-  it('a first chime tube gets the length of a uniform tube sounding its note (Euler–Bernoulli closed form)', () => {
+  it('a first chime tube gets the chime set\'s length for its note (the one computation: Timoshenko, Cowper\'s κ)', () => {
     const project = emptyProject({ id: 'p', name: 'Chimes', kind: 'chimes', lowestNote: 'C5', highestNote: 'C6', a4Hz: 442 });
     const suggestion = suggestBlank(project, 'G5', 'main');
     expect(suggestion.scaledFrom).toBeNull();
-    const heard = analyzeBar(suggestion.blank, { theory: 'euler-bernoulli', modes: 1 }).bending[0]!.hz;
-    // Rounded to 0.1 mm on ~400 mm: under 1 cent from the note (f ∝ 1/L²).
+    expect(suggestion.blank.length_mm).toBe(chimeLengthMm(projectChimeSet(project), 'G5'));
+    const heard = analyzeBar(suggestion.blank, { theory: 'timoshenko', modes: 1 }).bending[0]!.hz;
+    // Rounded to 0.1 mm on ~430 mm: under 1 cent from the note (f ∝ 1/L²).
     expect(Math.abs(1200 * Math.log2(heard / noteToHz('G5', 442)))).toBeLessThan(1);
+    // Euler–Bernoulli (no shear, no rotary inertia) hears the same tube sharp: a thin-walled tube is shear-soft (Cowper 1966).
+    const bernoulli = analyzeBar(suggestion.blank, { theory: 'euler-bernoulli', modes: 1 }).bending[0]!.hz;
+    expect(1200 * Math.log2(bernoulli / heard)).toBeGreaterThan(5);
+    expect(1200 * Math.log2(bernoulli / heard)).toBeLessThan(60);
     expect(barMaterialFamily(suggestion.blank)).toBe('metal');
     expect(barMaterialFamily(demo().bars[0]!.blank)).toBe('timber');
   });

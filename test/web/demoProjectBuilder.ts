@@ -6,7 +6,7 @@
 // to 0.1 Hz. Run: `npx tsx test/web/demoProjectBuilder.ts` (about a minute: it plans arches).
 import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { analyzeBar, cents, noteToHz, parseProjectFile, serializeProjectFile, type BarFile, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
+import { analyzeBar, cents, chimePieceBlank, noteToHz, parseChimeSetFile, parseProjectFile, serializeProjectFile, type BarFile, type ProjectBar, type ProjectFile, type Register } from '../../src/index.ts';
 
 const a4 = 442;
 /** The workshop's starting guess for its timber (the demo preset's values). */
@@ -164,16 +164,28 @@ function uniformBar(note: string, register: string, length: number, width: numbe
   };
 }
 
-/** An aluminium chime tube cut to length for its note (fundamental only), 25.4 × 1.6 mm. */
+/** The demo's chime set: a C5 pentatonic octave of 1 in aluminium tube (25.4 × 1.6 mm), fundamental tuned, open tops. */
+const chimeSet = parseChimeSetFile(
+  {
+    format: 'barwright.chime-set',
+    version: 1,
+    name: 'Demo workshop chime tubes',
+    a4_hz: a4,
+    notes: ['C5', 'D5', 'E5', 'G5', 'A5', 'C6'],
+    tune: 'fundamental',
+    stock: { section: { shape: 'tube', outer_diameter_mm: 25.4, wall_mm: 1.6 }, material: { E_GPa: aluminium.E_GPa, density_kg_m3: aluminium.density_kg_m3, poisson: aluminium.poisson }, bar_length_mm: 2000 },
+    end_masses: [],
+    saw_kerf_mm: 2,
+  },
+  'demo chime set',
+);
+
+/** An aluminium chime tube cut to the chime set's length for its note (fundamental only), 25.4 × 1.6 mm. */
 function chimeTube(note: string, measured: boolean, registersById: Map<string, Register>): ProjectBar {
   const reg = registersById.get('chimes')!;
-  const target = noteToHz(note, a4);
-  let length = 540;
-  const tube = (l: number): BarFile => ({ format: 'barwright.bar', version: 1, label: `${note} chime`, length_mm: l, section: { shape: 'tube', outer_diameter_mm: 25.4, wall_mm: 1.6 }, material: aluminium });
-  for (let pass = 0; pass < 4; pass += 1) length = length * Math.sqrt(analyzeBar(tube(length), { modes: 1 }).bending[0]!.hz / target);
-  length = Math.round((length + 1.5) * 2) / 2; // cut half a millimetre long, then trimmed
-  const bar = tube(length);
-  const real = { ...aluminium, E_GPa: 69.6 };
+  const bar: BarFile = { ...chimePieceBlank(chimeSet, note), label: `${note} chime` };
+  // The real tube is a shade stiffer than the data sheet (+0.15 %): it rings about a cent sharp, within tolerance.
+  const real = { ...chimeSet.stock.material, E_GPa: 69.0 };
   const steps = measured ? [{ bar, measured_hz: measure(bar, real, 1), recorded_at: day(6, 14, 40), source: 'microphone' as const }] : [];
   return {
     id: `chime-${note}`,
@@ -223,6 +235,7 @@ export function buildDemoProject(): ProjectFile {
       resonator_end: 'unflanged',
     },
     bars,
+    chime_set: chimeSet,
   };
   return parseProjectFile(project, 'demo project');
 }

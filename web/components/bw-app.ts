@@ -373,7 +373,7 @@ export class BwApp extends LitElement {
       case 'template':
         return html`<bw-template-view .project=${project} bar-id=${barId}></bw-template-view>`;
       case 'chimes':
-        return html`<bw-chime-view></bw-chime-view>`;
+        return html`<bw-chime-view .project=${project}></bw-chime-view>`;
       case 'workshop':
         return html`<bw-workshop-view .project=${project}></bw-workshop-view>`;
       case 'plan-print':

@@ -4,7 +4,7 @@
 // disclosure.
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { ChimeSetPlan } from '../../src/index.ts';
+import type { ChimeSetPieceRow, ChimeSetPlan } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatCents, formatHz, formatMm, formatNumber } from '../format.ts';
 import './bw-cautions.ts';
@@ -38,6 +38,17 @@ export class BwChimeResults extends LitElement {
   ];
 
   @property({ attribute: false }) plan: ChimeSetPlan | null = null;
+  /** Each note of the set beside the project's chime piece of that note (no column when null). */
+  @property({ attribute: false }) pieces: readonly ChimeSetPieceRow[] | null = null;
+
+  private renderPiece(note: string) {
+    const row = this.pieces?.find((candidate) => candidate.note === note);
+    if (!row?.piece) return html`<td class="muted" data-testid="chime-piece">not a piece yet</td>`;
+    const state = row.piece.state.replace('-', ' ');
+    return row.agrees
+      ? html`<td data-testid="chime-piece">✓ ${formatMm(row.piece.length_mm)} mm, ${state}</td>`
+      : html`<td class="problem" data-testid="chime-piece">≠ cut at ${formatMm(row.piece.length_mm)} mm (other stock or an older set), ${state}</td>`;
+  }
 
   protected override render() {
     const plan = this.plan;
@@ -56,6 +67,7 @@ export class BwChimeResults extends LitElement {
               <th scope="col" class="number">Lower node (mm)</th>
               <th scope="col">Strike note</th>
               <th scope="col">Partial ratios 2–6</th>
+              ${this.pieces ? html`<th scope="col">Piece in the project</th>` : nothing}
             </tr>
           </thead>
           <tbody>
@@ -68,6 +80,7 @@ export class BwChimeResults extends LitElement {
                 <td class="number">${formatMm(chime.lower_node_mm)}</td>
                 <td>${chime.strike_note} ${formatCents(chime.strike_cents)} cents</td>
                 <td>${chime.partials.slice(1).map((p) => formatNumber(p.ratio, 2)).join(' · ')}</td>
+                ${this.pieces ? this.renderPiece(chime.note) : nothing}
               </tr>`,
             )}
           </tbody>

@@ -26,14 +26,15 @@ export class BwCutMap extends LitElement {
   ];
 
   @property({ attribute: false }) sensitivities: CutEffectMap | null = null;
-  /** False for sections that are not undercut (tubes, rods): a short note instead of the map. */
+  /** False for sections that are not undercut (tubes, rods): a short note instead of the map. Bind it as a property (`.applicable`): the attribute's absence leaves the default. */
   @property({ type: Boolean }) applicable = true;
   /** Bar length, mm (the x axis ends there). */
   @property({ type: Number, attribute: 'length' }) lengthMm: number | null = null;
   private readonly lineChart = new LineChartController(this);
 
   protected override render() {
-    if (!this.applicable) return html`<p class="muted">Tubes and rods are not undercut: tune them by length.</p>`;
+    if (!this.applicable)
+      return html`<p class="muted" data-testid="cut-map-length-only">A tube or rod is never undercut: its only cut is its length. Trimming raises every partial together; the Tuning tab says how many millimetres to take off the free end.</p>`;
     if (!this.sensitivities) return html`<p class="muted" role="status">Working out the map…</p>`;
     return html`<p class="muted">Cents each partial moves when ${this.sensitivities.depth_mm} mm of depth comes off a ${this.sensitivities.strip_mm} mm strip at that place: below zero lowers it, above zero raises it. Shortening raises all.</p>
       <div class="frame"><canvas role="img" aria-label="Where-to-cut map: cents per 0.1 mm removed at each place, per partial"></canvas></div>`;

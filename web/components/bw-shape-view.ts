@@ -478,7 +478,7 @@ export class BwShapeView extends LitElement {
           ${rect && bar.current.profile_mm ? html`<bw-cautions material=${barMaterialFamily(bar.current)}></bw-cautions>` : nothing}
           <section class="panel">
             <h3>What a cut does, along the bar</h3>
-            <bw-cut-map .sensitivities=${this.cutMap} ?applicable=${rect} length=${this.shape?.length_mm ?? 0}></bw-cut-map>
+            <bw-cut-map .sensitivities=${this.cutMap} .applicable=${rect} length=${this.shape?.length_mm ?? 0}></bw-cut-map>
           </section>
           ${this.renderModes()}
           <section class="panel" aria-labelledby="solid-heading">

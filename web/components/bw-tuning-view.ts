@@ -22,6 +22,7 @@ import {
   setAdvice,
   setMinimumThickness,
   stableHash,
+  tunedByLength,
   warmBarMinutes,
   type NextCutResult,
   type ProjectBar,
@@ -48,6 +49,8 @@ import './bw-round-conditions.ts';
 import './bw-cautions.ts';
 import './bw-number-field.ts';
 import './bw-cut-advice.ts';
+import './bw-length-trim.ts';
+import './bw-shortening-switch.ts';
 
 /** The listening element, when its module is part of this build. */
 const listenModules = import.meta.glob('./bw-listen.ts');
@@ -367,6 +370,7 @@ export class BwTuningView extends LitElement {
     const project = this.project!;
     const register = registerOf(project, bar);
     const targets = barTargetHz(project, bar);
+    if (tunedByLength(bar)) return html`<bw-length-trim .project=${project} .bar=${bar}></bw-length-trim>`;
     if (bar.session.steps.length === 0) return html`<section class="panel"><h3>Next cut</h3><p class="muted">Record a round first: advice is based on what the bar sounds like.</p></section>`;
     if (bar.state === 'done' && !advice) return html`<section class="panel"><h3>Next cut</h3><p class="advice-status in-tune">● This bar is marked done.</p></section>`;
     if (this.cutSinceLastRound(bar)) {
@@ -422,7 +426,7 @@ export class BwTuningView extends LitElement {
 
   private renderLimit() {
     const bar = this.bar!;
-    return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field></div>`;
+    return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field><bw-shortening-switch .bar=${bar}></bw-shortening-switch></div>`;
   }
 
   private problemText(problem: TaskProblem): string {

@@ -15,6 +15,7 @@ import {
   closedTubeResonator,
   correctedBar,
   designBar,
+  lengthTrim,
   lotRecordFromCalibration,
   nextCut,
   parseChimeSetFile,
@@ -87,5 +88,10 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
   chimeSet(payload) {
     const plan = planChimeSet(parseChimeSetFile(payload.file, 'chime set'));
     return { plan, csv: chimeCutListCsv(plan) };
+  },
+
+  /** How much to trim a piece tuned by its length (a few line-model solves). */
+  lengthTrim(payload) {
+    return lengthTrim(payload);
   },
 };

@@ -1,6 +1,6 @@
 // The solver worker's jobs (solverWorker.ts), in the workbench's one job protocol
 // (jobProtocol.ts): for each kind, the payload the page sends and the result it gets back.
-import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile, Workshop } from '../../src/index.ts';
+import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LengthTrim, LengthTrimInput, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile, Workshop } from '../../src/index.ts';
 
 /** Analyse one bar: its modes, optionally shapes and the where-to-cut map. */
 export interface AnalyzePayload {
@@ -99,6 +99,7 @@ export type SolverJobs = {
   nextCut: { payload: NextCutPayload; result: NextCutAdvice };
   resonators: { payload: ResonatorPayload; result: (ResonatorResult & { id: string })[] };
   chimeSet: { payload: ChimeSetPayload; result: { plan: ChimeSetPlan; csv: string } };
+  lengthTrim: { payload: LengthTrimInput; result: LengthTrim };
 };
 
 /** The 3D model's job catalog: its own worker module, so the solver worker never loads the solid model. */
