@@ -11,6 +11,7 @@ import { syncSessionTargets } from './projectFileEdits.ts';
 import { checkPlayableNote } from './projectSetup.ts';
 import { chimePieceBlank, projectChimeSet } from './projectChimeSet.ts';
 import type { ProjectBar, ProjectFile, Register } from './projectFileTypes.ts';
+import { replaceBar } from './replaceBar.ts';
 
 /** Longest bar name, characters. */
 export const barNameLimit = 80;
@@ -246,13 +247,6 @@ export function addBarsFromPlan(project: ProjectFile, at: string): { project: Pr
   return { project: next, added };
 }
 
-function replaceBar(project: ProjectFile, barId: string, change: (bar: ProjectBar) => ProjectBar): ProjectFile {
-  const index = project.bars.findIndex((bar) => bar.id === barId);
-  if (index < 0) throw new InputError('project', 'bar', `no bar with id "${barId}"`);
-  const bars = project.bars.slice();
-  bars[index] = change(structuredClone(project.bars[index]!));
-  return { ...project, bars };
-}
 
 /** A bar taken out of a project, with where it stood (to put it back). */
 export interface RemovedBar {

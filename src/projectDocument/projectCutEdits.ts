@@ -5,6 +5,7 @@ import { InputError } from '../fileFormats/InputError.ts';
 import { roundDecimals } from '../fileFormats/roundDecimals.ts';
 import { assertNoMaterialAdded, thicknessAtMm } from './projectFileEdits.ts';
 import type { CaliperCheckpoint, ProjectBar, ProjectFile } from './projectFileTypes.ts';
+import { replaceBar } from './replaceBar.ts';
 
 /** The smallest part of an advised cut recorded as made, percent (less is no cut worth a round). */
 export const smallestPartialCutPercent = 10;
@@ -34,13 +35,6 @@ export function partOfCut(now: BarFile, after: BarFile, share: number): BarFile 
   return { ...structuredClone(now), profile_mm: profile };
 }
 
-function replaceBar(project: ProjectFile, barId: string, change: (bar: ProjectBar) => ProjectBar): ProjectFile {
-  const index = project.bars.findIndex((bar) => bar.id === barId);
-  if (index < 0) throw new InputError('project', 'bar', `no bar with id "${barId}"`);
-  const bars = project.bars.slice();
-  bars[index] = change(structuredClone(project.bars[index]!));
-  return { ...project, bars };
-}
 
 /**
  * The maker has made the advised cut: the bar's shape becomes the advice's `bar_after` (checked

@@ -6,17 +6,11 @@ import { InputError } from '../fileFormats/InputError.ts';
 import { defaultShortenAt } from '../session/index.ts';
 import { checkBlankRanges } from './blankRanges.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
+import { replaceBar } from './replaceBar.ts';
 
 /** Slack (mm) when checking that a shape never adds material to the one before it. */
 const materialSlackMm = 1e-6;
 
-function replaceBar(project: ProjectFile, barId: string, change: (bar: ProjectBar) => ProjectBar): ProjectFile {
-  const index = project.bars.findIndex((bar) => bar.id === barId);
-  if (index < 0) throw new InputError('project', 'bar', `no bar with id "${barId}"`);
-  const bars = project.bars.slice();
-  bars[index] = change(structuredClone(project.bars[index]!));
-  return { ...project, bars };
-}
 
 /** The session target of a bar from the instrument: note at A4, register ratios and tolerances. */
 function targetFor(instrument: Instrument, bar: ProjectBar): ProjectBar['session']['target'] {

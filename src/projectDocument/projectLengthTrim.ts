@@ -6,14 +6,8 @@ import { defaultShortenAt, type LengthTrimInput, type ShortenAt } from '../sessi
 import { barTargetHz, registerOf } from './projectFileTargets.ts';
 import { lastReadingAtPlayingHz } from './projectSessionContext.ts';
 import type { ProjectBar, ProjectFile } from './projectFileTypes.ts';
+import { replaceBar } from './replaceBar.ts';
 
-function replaceBar(project: ProjectFile, barId: string, change: (bar: ProjectBar) => ProjectBar): ProjectFile {
-  const index = project.bars.findIndex((bar) => bar.id === barId);
-  if (index < 0) throw new InputError('project', 'bar', `no bar with id "${barId}"`);
-  const bars = project.bars.slice();
-  bars[index] = change(structuredClone(project.bars[index]!));
-  return { ...project, bars };
-}
 
 /** True for a piece tuned by its length alone: a tube or rod (never undercut). */
 export function tunedByLength(bar: ProjectBar): boolean {
