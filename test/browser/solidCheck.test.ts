@@ -80,8 +80,22 @@ describe('the 3D check in the shape view', () => {
         )
         .toBe(1);
       await saved(page);
-      await run.scrollIntoViewIfNeeded();
-      await run.click();
+      // The route can settle once more after the save: go again if needed and click once the button is there.
+      await expect
+        .poll(
+          async () => {
+            if (!page.url().endsWith('#/shape/bar-A4')) await page.goto(`${baseUrl}#/shape/bar-A4`);
+            if ((await run.count()) !== 1) return 'waiting';
+            try {
+              await run.click({ timeout: 5_000 });
+              return 'clicked';
+            } catch {
+              return 'waiting';
+            }
+          },
+          { timeout: 60_000, interval: 1_000 },
+        )
+        .toBe('clicked');
       const table = page.locator('[data-testid="solid-modes"]');
       await table.waitFor({ timeout: 60_000 });
       const seconds = Number(await page.locator('[data-testid="solid-time"]').innerText());
