@@ -12,3 +12,4 @@ export * from './solidBarModes.ts';
 export * from './solidModeShape.ts';
 export * from './analyzeBar.ts';
 export * from './solidSensitivities.ts';
+export * from './solidBendingPartials.ts';

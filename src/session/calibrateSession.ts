@@ -82,6 +82,21 @@ export interface SessionCalibration {
   readonly warm: WarmReading[];
   /** The lot's prior the calibration started from, if any. */
   readonly lot: LotPrior | null;
+  /** A finer model's first-order word on small changes of the bar now (nextCutSolid sets it; predictShape adds it). */
+  readonly solidSlope?: SolidSlope;
+}
+
+/**
+ * What the solid model's thickness sensitivities add to the line model's on the bar now: per
+ * tuned partial and profile station x_j (m) of the bar now (thickness t_j, m), the solid's
+ * d(cents)/dt_j minus the line model's, cents per metre. A shape then predicts
+ * Σ_j slope_n,j·(t(x_j) − t_j) cents more than the line model: the solid model's change to first
+ * order, for the small steps of closing in.
+ */
+export interface SolidSlope {
+  readonly positions: Float64Array;
+  readonly thicknesses: Float64Array;
+  readonly centsPerMetre: readonly Float64Array[];
 }
 
 /** Options of calibrateSession. */

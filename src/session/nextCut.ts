@@ -5,7 +5,7 @@ import { parseSessionFile, sessionTargetHz, type SessionLog } from '../fileForma
 import { cents } from '../pitch/cents.ts';
 import { barFileFromModel, shapeAfterFile } from './barFileFromModel.ts';
 import { predictShape } from './predictShape.ts';
-import { calibrateSession, type MeasurementFlag, type SessionCalibration } from './calibrateSession.ts';
+import { calibrateSession, type MeasurementFlag, type SessionCalibration, type SolidSlope } from './calibrateSession.ts';
 import type { CalibrationPriors } from './calibrationPriors.ts';
 import { cutCautions } from './cutCautions.ts';
 import { cutInstructions, type CutInstructions } from './cutInstructions.ts';
@@ -15,6 +15,7 @@ import { centsPerNeper } from './partialModel.ts';
 import { stuckReason } from './stuckReason.ts';
 import { defaultStepPolicy, type StepPolicy } from './stepPolicy.ts';
 import { millimetre as mm } from '../units/units.ts';
+import type { BarModel } from '../modes/BarModel.ts';
 import { sectionDepth } from '../section/Section.ts';
 import { sectionFromFile } from '../modes/BarModel.ts';
 import { roundDecimals as round } from '../fileFormats/roundDecimals.ts';
@@ -31,6 +32,8 @@ export interface NextCutOptions {
   readonly lot?: LotPrior | null;
   /** The correction's prior from a finer model (see CalibrateOptions; nextCutSolid sets it). */
   readonly correctionPrior?: readonly { readonly mean: number; readonly sigma: number }[];
+  /** The solid model's first-order difference on the bar now (nextCutSolid sets it; see SolidSlope). */
+  readonly solidSlope?: SolidSlope;
   /** Name used in error messages (a file name). */
   readonly source?: string;
   /** Called as the work advances (stage name, fraction 0…1): calibration, then planning. */
@@ -202,8 +205,14 @@ function temperatureWarnings(calibration: SessionCalibration, tolerance: readonl
   return warnings;
 }
 
+/** The advice, and when it is a cut, the calibrated bar now and as the cut should leave it (SI models, the calibrated moduli). */
+export interface PlannedNextCut {
+  readonly result: NextCutResult;
+  readonly shapes: { readonly now: BarModel; readonly after: BarModel } | null;
+}
+
 /**
- * The next cut of a tune-and-trim session (contract: `barwright next-cut`). Validates the session
+ * The next cut of a tune-and-trim session, with the shapes it was planned on. Validates the session
  * (a session file value, parsed or raw), calibrates the model to every measurement projected to the
  * playing temperature (calibrateSession; from a lot's prior when `lot` is given), and from the bar
  * now — its last step, as the caliper measured it if it did — plans the smallest removal toward the
@@ -215,7 +224,7 @@ function temperatureWarnings(calibration: SessionCalibration, tolerance: readonl
  * gives `wait_minutes` and a warning. Pure and synchronous (calibration ≈ 10 solves per step,
  * planning ≈ 30 solves).
  */
-export function nextCut(session: unknown, options: NextCutOptions = {}): NextCutResult {
+export function planNextCut(session: unknown, options: NextCutOptions = {}): PlannedNextCut {
   const source = options.source ?? 'session';
   const log = parseSessionFile(session, source);
   if (log.steps.length === 0) throw new InputError(source, 'steps', 'needs at least one measured step (the bar as it is now, with its partials)');
@@ -225,7 +234,8 @@ export function nextCut(session: unknown, options: NextCutOptions = {}): NextCut
   const tolerance = log.target.tolerance_cents;
   const tuned = targetHz.length;
   options.onProgress?.('calibrating', 0);
-  const calibration = calibrateSession(log, { ...(options.priors ? { priors: options.priors } : {}), lot: options.lot ?? null, ...(options.correctionPrior ? { correctionPrior: options.correctionPrior } : {}) });
+  const fitted = calibrateSession(log, { ...(options.priors ? { priors: options.priors } : {}), lot: options.lot ?? null, ...(options.correctionPrior ? { correctionPrior: options.correctionPrior } : {}) });
+  const calibration = options.solidSlope ? { ...fitted, solidSlope: options.solidSlope } : fitted;
   options.onProgress?.('planning', 0.5);
   const lastIndex = log.steps.length - 1;
   const last = log.steps[lastIndex]!;
@@ -272,7 +282,7 @@ export function nextCut(session: unknown, options: NextCutOptions = {}): NextCut
     return result;
   };
   if (flaggedNow.length > 0)
-    return unchanged('stuck', `re-measure before cutting: ${flaggedNow.map((f) => f.reason).join('; ')}. No cut is planned from a measurement the session cannot explain.`, 'hold');
+    return { result: unchanged('stuck', `re-measure before cutting: ${flaggedNow.map((f) => f.reason).join('; ')}. No cut is planned from a measurement the session cannot explain.`, 'hold'), shapes: null };
   const checked = base.calibration.cut_from_plan.find((entry) => entry.step === lastIndex + 1);
   if (checked && checked.percent !== null && Math.abs(checked.percent - 100) > 10)
     warnings.push(`the caliper says the last cut went ${checked.percent.toFixed(0)} % as deep as planned (${checked.percent > 100 ? 'deeper' : 'shallower'}): the session uses the bar as measured`);
@@ -281,7 +291,7 @@ export function nextCut(session: unknown, options: NextCutOptions = {}): NextCut
   if (inTolerance) {
     const unmeasured = targetHz.map((_, n) => n).filter((n) => n >= last.measured_hz.length);
     if (unmeasured.length > 0) warnings.push(`partial${unmeasured.length > 1 ? 's' : ''} ${unmeasured.map((n) => n + 1).join(', ')} not measured: the model puts ${unmeasured.length > 1 ? 'them' : 'it'} in tolerance; strike the bar and check`);
-    return unchanged('done', undefined, 'close-in');
+    return { result: unchanged('done', undefined, 'close-in'), shapes: null };
   }
   const trimmedSoFar = Math.max(0, log.steps[0]!.bar.length_mm - last.bar.length_mm) * mm;
   const stepLimits: CutLimits = { ...limits, maxShortening: limits.allowShortening ? Math.max(0, limits.maxShortening - trimmedSoFar) : 0 };
@@ -304,9 +314,9 @@ export function nextCut(session: unknown, options: NextCutOptions = {}): NextCut
     if (Math.abs(before) <= allowed) return false;
     return Math.abs(c) <= allowed || Math.abs(before) - Math.abs(c) >= Math.max(minimumProgress * allowed, minimumShareOfError * Math.abs(before));
   });
-  if (!progress) return unchanged('stuck', stuckReason({ calibration, model, errorCents: nowCents, toleranceCents: tolerance, limits: stepLimits, plan }), plan.aims.phase, plan.binding);
+  if (!progress) return { result: unchanged('stuck', stuckReason({ calibration, model, errorCents: nowCents, toleranceCents: tolerance, limits: stepLimits, plan }), plan.aims.phase, plan.binding), shapes: null };
   options.onProgress?.('done', 1);
-  return {
+  const result: NextCutResult = {
     status: 'cut',
     bar_after: barAfter,
     predicted_hz: predictedCents.map((c, n) => targetHz[n]! * 2 ** (c / 1200)),
@@ -319,4 +329,12 @@ export function nextCut(session: unknown, options: NextCutOptions = {}): NextCut
     binding: plan.binding,
     warnings,
   };
+  return { result, shapes: { now: model, after: expectedAfter } };
+}
+
+/**
+ * The next cut of a tune-and-trim session (contract: `barwright next-cut`): planNextCut's advice.
+ */
+export function nextCut(session: unknown, options: NextCutOptions = {}): NextCutResult {
+  return planNextCut(session, options).result;
 }

@@ -1,96 +1,134 @@
-// The next cut with the solid model's word on the shape about to be cut.
+// The next cut with the solid model's word on the wood and on the shape about to be cut.
 import { barModelFromFile, type BarModel } from '../modes/BarModel.ts';
-import { analyzeBarModel } from '../modes/analyzeBar.ts';
 import { parseBarFile } from '../fileFormats/barFile.ts';
+import { parseSessionFile } from '../fileFormats/sessionFile.ts';
 import { archDepth } from './archDepth.ts';
 import { evaluatePartials } from './partialModel.ts';
-import { nextCut, type NextCutOptions, type NextCutResult } from './nextCut.ts';
+import { planNextCut, type NextCutOptions, type NextCutResult } from './nextCut.ts';
+import type { SolidSlope } from './calibrateSession.ts';
+import { solidBendingPartials } from '../modes/solidBendingPartials.ts';
+import { bendingSensitivities } from '../modes/bendingSensitivities.ts';
+import { defaultStepPolicy } from './stepPolicy.ts';
+import { fitSolidWood, solidPartialCents, type SolidWoodFit } from './fitSolidWood.ts';
 
 /**
- * One-sigma of the solid model's correction prior, per unit arch depth (barwright's own: the
- * solid model with the session's calibrated E and G still carries the wood's unmeasured
- * constants — the transverse moduli and the in-plane shear moduli, tens of percent off any table —
- * which move the line-to-solid gap by about a tenth of itself on the demo bars, 0.5–1 % of
- * frequency per unit depth).
+ * One-sigma of the solid model's correction prior, per unit arch depth (barwright's own: with the
+ * wood fitted to the readings the solid model still carries the wood's unmeasured constants — the
+ * transverse moduli and the grain — which move the line-to-solid gap by about a tenth of itself on
+ * the demo bars, 0.5–1 % of frequency per unit depth).
  */
 export const solidCorrectionSigma = 0.01;
 /** Below this arch depth the gap is too small to tell a correction per unit depth from noise. */
 const shallowestDepth = 0.05;
-/** Most solid analyses per call: the planned shape moves with the correction, so the correction is taken again on it. */
+/** Most solid analyses of planned shapes per call: the planned shape moves with the correction, so the correction is taken again on it. */
 const maxRounds = 3;
 /** The correction has settled when the solid model's gap on the new plan is within this of what the prior assumed there, cents. */
 const settledCents = 3;
 
-/** What the solid model said about the shape the first plan would cut. */
-export interface SolidCorrectionReport {
-  /** The planned shape's arch depth (1 − thinnest/blank). */
-  arch_depth: number;
-  /** Solid minus line model on that shape, cents per partial (negative: the line model is sharp). */
-  solid_minus_line_cents: number[];
-  /** The correction prior given to the calibration, fraction of frequency per unit arch depth. */
-  correction_per_depth: number[];
-  /** Solid analyses it took (the planned shape moves with the correction; up to 3). */
-  rounds: number;
+/**
+ * Within this many cents of every target (barwright's own), a step is small enough for the solid
+ * model's first-order change: a 50-cent step thins the bar by a few percent where it is cut, and
+ * the sensitivities, going as thickness cubed, move by about that share of themselves.
+ */
+const closeInCents = 50;
+
+/** The solid model's sensitivities less the line model's on the bar now (SolidSlope), with the fitted wood and the calibrated E and G. */
+function slopeOf(now: BarModel, wood: BarModel['material'], calibrated: NextCutResult['calibrated_material'], tuned: number): SolidSlope {
+  const solid = solidBendingPartials({ ...now, material: wood }, tuned, true);
+  const line = evaluatePartials(now, calibrated.E_GPa * 1e9, calibrated.G_GPa * 1e9, tuned, false).solution;
+  const lineSensitivities = bendingSensitivities(line);
+  const centsPerNeper = 1200 / Math.LN2;
+  return {
+    positions: Float64Array.from(now.profile.positions),
+    thicknesses: Float64Array.from(now.profile.thicknesses),
+    centsPerMetre: solid.centsPerMetre.map((perStation, n) => Float64Array.from(perStation, (value, j) => value - (centsPerNeper * lineSensitivities[n]![j]!) / (2 * line.eigenvalues[n]!))),
+  };
 }
 
-/** nextCut's result with the solid model's correction, when it was consulted. */
-export type SolidNextCutResult = NextCutResult & { solid_correction: SolidCorrectionReport | null };
+/** What the solid model said in a session step. */
+export interface SolidSessionReport {
+  /** The wood fitted on the solid model to the bar now (as calibrated): E along the grain, GPa, and the shear moduli as a share of the bar file's. */
+  E_L_GPa: number;
+  shear_scale: number;
+  /** Reading − solid model with the fitted wood, cents per partial read: what the two constants cannot explain. */
+  fit_residual_cents: number[];
+  /** The planned shape's arch depth (1 − thinnest/blank); null when the bar is too shallow for a correction. */
+  arch_depth: number | null;
+  /** Solid minus line model on the planned shape, cents per partial (negative: the line model is sharp); empty when shallow. */
+  solid_minus_line_cents: number[];
+  /** The correction prior given to the calibration, fraction of frequency per unit arch depth; empty when shallow. */
+  correction_per_depth: number[];
+  /** True when the step was planned with the solid model's own sensitivities (closing in: within 50 cents of every target). */
+  solid_sensitivities: boolean;
+  /** Solid analyses in all (the wood's fit, the sensitivities and the planned shapes). */
+  solid_solves: number;
+}
 
-/** The model with its moduli scaled to the calibration: E along the grain and every shear modulus by the calibrated ratios. */
-function calibratedModel(model: BarModel, youngModulus: number, shearModulus: number): BarModel {
-  const material = model.material;
-  const young = youngModulus / material.youngModulus;
-  const shear = shearModulus / material.shearModulus;
-  const elasticity = material.elasticity;
-  const scaled =
-    elasticity?.kind === 'orthotropic'
-      ? {
-          ...elasticity,
-          constants: {
-            ...elasticity.constants,
-            youngLongitudinal: elasticity.constants.youngLongitudinal * young,
-            shearLongitudinalRadial: elasticity.constants.shearLongitudinalRadial * shear,
-            shearLongitudinalTangential: elasticity.constants.shearLongitudinalTangential * shear,
-            shearRadialTangential: elasticity.constants.shearRadialTangential * shear,
-          },
-        }
-      : elasticity;
-  return { ...model, material: { ...material, youngModulus, shearModulus, ...(scaled ? { elasticity: scaled } : {}) } };
+/** nextCut's result on the solid model; `solid` is null when it was not consulted (a round or tube bar, or no cut to plan). */
+export type SolidNextCutResult = NextCutResult & { solid: SolidSessionReport | null };
+
+/** The bar now with the maker's guess of its wood: the calibrated shape (each earlier cut at its fitted depth) and the bar file's material. */
+function woodNow(session: unknown, source: string, calibratedNow: BarModel): BarModel {
+  const log = parseSessionFile(session, source);
+  const guess = barModelFromFile(parseBarFile(log.steps[log.steps.length - 1]!.bar, 'bar now')).material;
+  return { ...calibratedNow, material: guess };
 }
 
 /**
- * The next cut, with the 1D model's correction taken from the solid model instead of assumed:
- * plan once as nextCut does; analyse the planned shape with the solid model (the session's
- * calibrated E and G, the other constants scaled with them) and with the line model; give the
- * calibration their gap per unit arch depth as the correction's prior (±solidCorrectionSigma);
- * plan again, and again on the new plan while the gap there differs from what the prior assumed by
- * more than 3 cents (the gap grows faster than the depth; at most 3 solid analyses). The
- * measurements still move the correction: the solid model only replaces the guess of zero that a
- * session starts from. About a second per solid analysis;
- * rectangular wooden or metal bars only — others, and bars barely cut, get nextCut's answer.
+ * The next cut with the solid model in the calibration. (1) Plan as nextCut does. (2) Fit the wood on the solid model to the bar as it is now (fitSolidWood: the
+ * stiffness along the grain and the shear stiffness, from the line calibration's E and G). (3)
+ * Analyse the planned shape on the solid model with that wood and on the line model with the
+ * calibrated E and G; give the calibration their gap per unit arch depth as the correction's prior
+ * (±solidCorrectionSigma) and plan again, again on the new plan while the gap there differs from
+ * what the prior assumed by more than 3 cents (the gap grows faster than the depth; at most 3
+ * analyses). The readings still move the correction: the solid model replaces the guess of zero a
+ * session starts from, so the line model's form error no longer costs cuts. About a second per
+ * solid analysis, 3–7 in all. Rectangular bars only: others get nextCut's answer with `solid: null`;
+ * a bar barely cut gets the fitted wood reported and no correction.
  */
 export function nextCutSolid(session: unknown, options: NextCutOptions = {}): SolidNextCutResult {
-  let result = nextCut(session, options);
-  let report: SolidCorrectionReport | null = null;
-  let analyses = 0;
+  const policy = options.policy ?? defaultStepPolicy;
+  const first = planNextCut(session, { ...options, policy });
+  let result = first.result;
+  if (!first.shapes || first.shapes.now.section.shape !== 'rect') return { ...result, solid: null };
+  const now = woodNow(session, options.source ?? 'session', first.shapes.now);
+  const tuned = result.target_hz.length;
+  const read = Math.min(tuned, result.readings_at_playing_temperature_hz.length);
+  const readingCents = result.readings_at_playing_temperature_hz.slice(0, read).map((hz) => 1200 * Math.log2(hz));
+  const scale = (result.calibrated_material.E_GPa * 1e9) / now.material.youngModulus;
+  const wood: SolidWoodFit = fitSolidWood(now, readingCents, { scale, shearRatio: (result.calibrated_material.G_GPa * 1e9) / now.material.shearModulus / scale });
+  let solves = wood.solves;
+  // Closing in, the solid model's own sensitivities set the change to first order (SolidSlope).
+  const closing = Math.max(...result.now_cents.map(Math.abs)) <= closeInCents;
+  const solidSlope = closing ? slopeOf(first.shapes.now, wood.material, result.calibrated_material, tuned) : undefined;
+  if (solidSlope) solves++;
+  const withSlope = solidSlope ? { solidSlope } : {};
+  let gap: number[] = [];
+  let perDepth: number[] = [];
+  let depthPlanned: number | null = null;
+  let replanned = false;
   for (let round = 0; round < maxRounds && result.status === 'cut'; round++) {
     const planned = barModelFromFile(parseBarFile(result.bar_after, 'planned bar'));
     const depth = archDepth(planned);
-    if (planned.section.shape !== 'rect' || depth < shallowestDepth) break;
-    const partials = result.target_hz.length;
-    const model = calibratedModel(planned, result.calibrated_material.E_GPa * 1e9, result.calibrated_material.G_GPa * 1e9);
-    const line = evaluatePartials(model, model.material.youngModulus, model.material.shearModulus, partials, false).cents;
-    const solid = analyzeBarModel(model, { theory: 'solid', modes: partials }).bending.map((mode) => 1200 * Math.log2(mode.hz));
-    analyses++;
-    if (report) report.rounds = analyses;
-    const gapCents = Array.from({ length: partials }, (_, n) => solid[n]! - line[n]!);
+    if (depth < shallowestDepth) break;
+    const young = result.calibrated_material.E_GPa * 1e9;
+    const shear = result.calibrated_material.G_GPa * 1e9;
+    const line = evaluatePartials(planned, young, shear, tuned, false).cents;
+    const solid = solidPartialCents({ ...planned, material: wood.material }, tuned);
+    solves++;
+    const gapCents = Array.from({ length: tuned }, (_, n) => solid[n]! - line[n]!);
     // The gap grows faster than the depth: what the last prior assumed at this depth, against what the solid model says.
-    const assumed: number[] = report ? report.correction_per_depth.map((c) => (1200 * c * depth) / Math.LN2) : gapCents.map(() => 0);
-    const settled = gapCents.every((g, n) => Math.abs(g - assumed[n]!) <= settledCents);
-    if (settled && report) break;
-    const perDepth = gapCents.map((cents) => (cents * Math.LN2) / 1200 / depth);
-    report = { arch_depth: depth, solid_minus_line_cents: gapCents, correction_per_depth: perDepth, rounds: analyses };
-    result = nextCut(session, { ...options, correctionPrior: perDepth.map((mean) => ({ mean, sigma: solidCorrectionSigma })) });
+    const assumed = perDepth.length ? perDepth.map((c) => (1200 * c * depth) / Math.LN2) : null;
+    if (assumed && gapCents.every((g, n) => Math.abs(g - assumed[n]!) <= settledCents)) break;
+    gap = gapCents;
+    depthPlanned = depth;
+    perDepth = gapCents.map((cents) => (cents * Math.LN2) / 1200 / depth);
+    result = planNextCut(session, { ...options, policy, ...withSlope, correctionPrior: perDepth.map((mean) => ({ mean, sigma: solidCorrectionSigma })) }).result;
+    replanned = true;
   }
-  return { ...result, solid_correction: report };
+  if (solidSlope && !replanned) result = planNextCut(session, { ...options, policy, solidSlope }).result;
+  return {
+    ...result,
+    solid: { E_L_GPa: wood.youngLongitudinal / 1e9, shear_scale: wood.shearScale, fit_residual_cents: wood.residualCents, arch_depth: depthPlanned, solid_minus_line_cents: gap, correction_per_depth: perDepth, solid_sensitivities: solidSlope !== undefined, solid_solves: solves },
+  };
 }

@@ -77,6 +77,7 @@ function linearise(input: PlanCutInput, regions: CutRegions | null, now: ShapePr
     let thinnest = 0;
     for (let j = 1; j < thicknesses.length; j++) if (thicknesses[j]! < thicknesses[thinnest]!) thinnest = j;
     const blank = candidate.model.section.shape === 'rect' ? candidate.model.section.thickness : 1;
+    const slope = input.calibration.solidSlope;
     for (let n = 0; n < tuned; n++) {
       const lambda = solution.eigenvalues[n]!;
       const perThickness = sensitivities[n]!;
@@ -86,6 +87,8 @@ function linearise(input: PlanCutInput, regions: CutRegions | null, now: ShapePr
         for (let j = 0; j < shape.length; j++) column -= ((centsPerNeper * perThickness[j]!) / (2 * lambda)) * shape[j]! * mm;
         // The correction c_n·depth moves too when the thinnest station is cut deeper.
         column += centsPerNeper * correction * ((shape[thinnest]! * mm) / blank);
+        // And the solid model's difference, on the bar now's stations (the same grid unless shortened).
+        if (slope && slope.positions.length === shape.length) for (let j = 0; j < shape.length; j++) column -= slope.centsPerMetre[n]![j]! * shape[j]! * mm;
         matrix[n]![k] = column;
       });
     }

@@ -1,5 +1,6 @@
 import type { BarModel } from '../modes/BarModel.ts';
 import { archDepth } from './archDepth.ts';
+import { thicknessAt } from '../section/ThicknessProfile.ts';
 import type { SessionCalibration } from './calibrateSession.ts';
 import { centsPerNeper, evaluatePartials, type PartialEvaluation } from './partialModel.ts';
 
@@ -14,13 +15,28 @@ export interface ShapePrediction {
 
 /**
  * The calibrated model's partials for a shape (its own moduli are replaced by the calibrated
- * ones): cents_n(E, G; shape) + (1200/ln 2)·c_n·depth(shape). With `derivatives`, also the
+ * ones): cents_n(E, G; shape) + (1200/ln 2)·c_n·depth(shape), plus the solid model's first-order
+ * difference when the calibration carries one (SolidSlope). With `derivatives`, also the
  * moduli derivatives needed for the uncertainty of a change (one more solve).
  */
 export function predictShape(calibration: SessionCalibration, model: BarModel, derivatives = true): ShapePrediction {
   const evaluation = evaluatePartials(model, calibration.youngModulus, calibration.shearModulus, calibration.modes, derivatives);
   const depth = archDepth(model);
   const cents = Float64Array.from(evaluation.cents, (c, n) => c + centsPerNeper * (calibration.corrections[n] ?? 0) * depth);
+  const slope = calibration.solidSlope;
+  if (slope) {
+    // Stations of the bar now, mapped onto this shape about its centre (a shortened bar loses its ends equally).
+    const offset = 0.5 * (model.length - slope.positions[slope.positions.length - 1]!);
+    slope.centsPerMetre.forEach((perStation, n) => {
+      if (n >= cents.length) return;
+      let sum = 0;
+      for (let j = 0; j < perStation.length; j++) {
+        const x = slope.positions[j]! + offset;
+        if (x >= 0 && x <= model.length) sum += perStation[j]! * (thicknessAt(model.profile, x) - slope.thicknesses[j]!);
+      }
+      cents[n]! += sum;
+    });
+  }
   return { model, depth, cents, evaluation };
 }
 

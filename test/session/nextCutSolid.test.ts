@@ -38,10 +38,10 @@ describe('the first cut on a bar whose wood the tool does not know', () => {
       const solid = nextCutSolid(session);
       expect(line.status).toBe('cut');
       expect(solid.status).toBe('cut');
-      expect(solid.solid_correction).not.toBeNull();
+      expect(solid.solid).not.toBeNull();
       const lineMiss = miss(line);
       const solidMiss = miss(solid);
-      report.push(`  ${name}: line model alone ${lineMiss.map((c) => c.toFixed(1)).join(' / ')}; with the solid model ${solidMiss.map((c) => c.toFixed(1)).join(' / ')} (${solid.solid_correction!.rounds} solid analyses)`);
+      report.push(`  ${name}: line model alone ${lineMiss.map((c) => c.toFixed(1)).join(' / ')}; with the solid model ${solidMiss.map((c) => c.toFixed(1)).join(' / ')} (${solid.solid!.solid_solves} solid analyses)`);
       for (const c of solidMiss) expect(Math.abs(c)).toBeLessThan(10);
       expect(Math.max(...lineMiss.map(Math.abs))).toBeGreaterThan(30);
     }, 300_000);

@@ -4,7 +4,7 @@
 import { barModelFromFile } from '../../src/modes/BarModel.ts';
 import { parseBarFile, type BarFile } from '../../src/fileFormats/barFile.ts';
 import { thicknessAt, type ThicknessProfile } from '../../src/section/ThicknessProfile.ts';
-import { nextCut, type NextCutResult } from '../../src/session/nextCut.ts';
+import { nextCut, type NextCutOptions, type NextCutResult } from '../../src/session/nextCut.ts';
 import type { LotPrior } from '../../src/session/lotPrior.ts';
 import type { BarModel } from '../../src/modes/BarModel.ts';
 import { defaultRealPhysics, realPartials, seededRandom, type RealPhysics } from './simulatedBar.ts';
@@ -39,6 +39,10 @@ export interface SimulatedSessionSetup {
   readonly caliper?: { readonly noiseMm: number };
   /** What finished bars of the same lot taught (passed to nextCut). */
   readonly lot?: LotPrior | null;
+  /** How the real bar sounds (default: realPartials with `physics`); e.g. the solid model with constants the tool does not know. */
+  readonly strikeModel?: (real: BarModel, modes: number) => number[];
+  /** The advice asked for each round (default nextCut); e.g. nextCutSolid. */
+  readonly advise?: (session: unknown, options: NextCutOptions) => NextCutResult;
 }
 
 /** What happened. */
@@ -108,13 +112,15 @@ export function runSimulatedSession(setup: SimulatedSessionSetup): SimulatedSess
   const modes = setup.target.ratios.length;
   const climate = setup.temperature;
   const centsOf = (hz: readonly number[]): number[] => hz.map((f, n) => 1200 * Math.log2(f / (setup.target.hz * setup.target.ratios[n]!)));
-  const trueCents = (): number[] => centsOf(realPartials(real, physics, modes));
+  const sound = setup.strikeModel ?? ((bar: BarModel, count: number): number[] => realPartials(bar, physics, count));
+  const advise = setup.advise ?? nextCut;
+  const trueCents = (): number[] => centsOf(sound(real, modes));
   const trueCentsByStep: number[][] = [];
   const realByStep: BarModel[] = [];
   // Readings taken 15 minutes after each cut, an hour apart (cool bars; times recorded).
   let clock = Date.parse('2025-03-03T09:00:00Z');
   const strike = (): Record<string, unknown> => {
-    const truth = realPartials(real, physics, modes);
+    const truth = sound(real, modes);
     trueCentsByStep.push(centsOf(truth));
     realByStep.push(real);
     const air = climate ? climate.rangeC[0] + random() * (climate.rangeC[1] - climate.rangeC[0]) : undefined;
@@ -134,7 +140,7 @@ export function runSimulatedSession(setup: SimulatedSessionSetup): SimulatedSess
   let status: NextCutResult['status'];
   let firstCutErrorCents: number[] | null = null;
   for (;;) {
-    const result = nextCut(session, setup.lot ? { lot: setup.lot } : {});
+    const result = advise(session, setup.lot ? { lot: setup.lot } : {});
     results.push(result);
     status = result.status;
     if (status !== 'cut' || cuts >= (setup.maxCuts ?? 8)) break;

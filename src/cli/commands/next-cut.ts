@@ -1,5 +1,5 @@
 import { InputError } from '../../fileFormats/index.ts';
-import { nextCut, nextCutSolid, type NextCutResult, type SolidCorrectionReport } from '../../session/index.ts';
+import { nextCut, nextCutSolid, type NextCutResult, type SolidSessionReport } from '../../session/index.ts';
 import { fixed, formatTable, parseOptions, toJson, type Command, type CommandIo } from '../command.ts';
 import { priorForSession, readLotFile, readSessionFile } from '../readSession.ts';
 
@@ -26,7 +26,7 @@ function statusLine(result: NextCutResult): string {
 }
 
 /** The human-readable report of a next-cut result. */
-function formatNextCut(result: NextCutResult, title: string, solid: SolidCorrectionReport | null = null): string {
+function formatNextCut(result: NextCutResult, title: string, solid: SolidSessionReport | null = null): string {
   const lines: string[] = [];
   const c = result.calibration;
   lines.push(title);
@@ -34,10 +34,15 @@ function formatNextCut(result: NextCutResult, title: string, solid: SolidCorrect
     `Calibrated model: E ${fixed(c.E_GPa, 2)} GPa (±${fixed(c.E_uncertainty_percent, 1)} %), G ${fixed(c.G_GPa, 3)} GPa (±${fixed(c.G_uncertainty_percent, 1)} %), density ${fixed(result.calibrated_material.density_kg_m3, 0)} kg/m³`,
   );
   lines.push(`1D-model correction at this arch depth (${fixed(c.arch_depth, 2)}): ${c.correction_percent.slice(0, result.target_hz.length).map((p) => `${signed(p, 2)} %`).join(', ')}`);
-  if (solid)
+  if (solid) {
     lines.push(
-      `Solid model on the planned shape (arch depth ${fixed(solid.arch_depth, 2)}): ${solid.solid_minus_line_cents.map((g) => `${signed(g, 1)}`).join(', ')} cents against the line model, given to the correction as its prior (${solid.rounds} solid analys${solid.rounds === 1 ? 'is' : 'es'})`,
+      `Wood fitted on the solid model to the bar now: E along the grain ${fixed(solid.E_L_GPa, 2)} GPa, shear moduli ×${fixed(solid.shear_scale, 2)} of the bar file's; readings − model ${solid.fit_residual_cents.map((r) => signed(r, 1)).join(', ')} cents`,
     );
+    if (solid.arch_depth !== null)
+      lines.push(
+        `Solid model on the planned shape (arch depth ${fixed(solid.arch_depth, 2)}): ${solid.solid_minus_line_cents.map((g) => signed(g, 1)).join(', ')} cents against the line model, given to the correction as its prior (${solid.solid_solves} solid analyses in all)`,
+      );
+  }
   if (c.lot) lines.push(`Started from lot ${c.lot.name}, learnt from ${c.lot.bars.join(', ')}`);
   for (const depth of c.cut_depth_percent) lines.push(`Cut before step ${depth.step} reads as ${fixed(depth.percent, 0)} % of the depth recorded (±${fixed(depth.uncertainty_percent, 0)} %)`);
   for (const check of c.cut_from_plan)
@@ -139,7 +144,7 @@ export const nextCutCommand: Command = {
       return 0;
     }
     const steps = log.steps.length;
-    io.stdout(formatNextCut(result, `${log.label ?? path}: ${steps} step${steps === 1 ? '' : 's'}, ratios ${log.target.ratios.join(':')}`, solidResult?.solid_correction ?? null));
+    io.stdout(formatNextCut(result, `${log.label ?? path}: ${steps} step${steps === 1 ? '' : 's'}, ratios ${log.target.ratios.join(':')}`, solidResult?.solid ?? null));
     if (values.out !== undefined) io.stdout(`\nWrote the bar after the cut to ${values.out}.`);
     return 0;
   },
