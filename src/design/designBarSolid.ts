@@ -173,7 +173,7 @@ export function designBarSolid(bar: BarFile, request: DesignRequest, run: Design
       ? 'stopped before the solid model was consulted'
       : `the solid model of the closest arch leaves ${missed.map(({ c, k }) => `partial ${k + 1} ${c >= 0 ? '+' : ''}${c.toFixed(1)} cents`).join(', ')}${result.reason ? `; the line-model design: ${result.reason}` : ''}`
     : clash
-      ? `the partials are on target, but no arch within the limits keeps every other mode clear of them${tried}: ${collide.map(clearanceText).join('; ')} — it can buzz or beat`
+      ? `the partials are on target, but no arch within the limits keeps every other mode clear of them${tried}: ${collide.map(clearanceText).join('; ')} — it can buzz or beat; the blank's width moves them and hardly the tuned partials (narrower: torsion up, lateral down)`
       : undefined;
   const solidWarnings = collide.length ? collisionWarnings(solidHz, chosen.others) : [];
   const { theory: _lineTheory, reason: _lineReason, ...rest } = result;
