@@ -74,6 +74,27 @@ describe('keeping the other modes clear on the solid model (A2 blank planed to 5
       for (const [k, hz] of tuned.entries()) expect(Math.abs(other.hz - hz), `${other.name} against partial ${k + 1}`).toBeGreaterThan(beatingDistance(hz));
   }, 180_000);
 
+  it('a bar cut already leaves the lever no room: not feasible, and the reason says which mode, how far, and what moves it', async () => {
+    // The demo's F3 rough cut (fixtures/f3-rough.bar.json, cut from 90 to 350 mm already) planed to
+    // 49 mm wide: lateral mode 2 about 4 Hz above partial 3 (barwright's own solid runs, 2026-12);
+    // longer uncut ends cannot undo the cut that is there.
+    const rough = JSON.parse(readFileSync(new URL('../../fixtures/f3-rough.bar.json', import.meta.url), 'utf8'));
+    const dir = mkdtempSync(join(tmpdir(), 'barwright-collisions-'));
+    const blankPath = join(dir, 'narrow-f3.bar.json');
+    writeFileSync(blankPath, JSON.stringify({ ...rough, section: { ...rough.section, width_mm: 49 } }));
+    const out = await run(['design', blankPath, '--note', 'F3', '--a4', '442', '--ratios', '1:4:10', '--theory', 'solid', '--json']);
+    expect(out.code, out.stderr).toBe(0);
+    const result = JSON.parse(out.stdout);
+    expect(result.feasible).toBe(false);
+    expect(result.reason).toMatch(/^the partials are on target, but no arch within the limits keeps every other mode clear of them \(uncut ends tried up to \d+\.\d mm\): lateral mode 2 is \d+\.\d Hz above partial 3 \(rule: 15 Hz\) — it can buzz or beat; the blank's width moves them/);
+    expect(result.solid.collisions).toMatchObject({ kept_clear: true, holds: false, uncut_end_mm: null });
+    // What it says is so on a fresh analysis of the bar it returns: the partials on target, lateral 2 inside 15 Hz.
+    const solid = analyzeBar(parseBarFile(result.bar, 'returned'), { theory: 'solid', modes: 3 });
+    const partial3 = solid.bending[2]!.hz;
+    expect(Math.abs(solid.lateral.find((m) => m.mode === 2)!.hz - partial3)).toBeLessThanOrEqual(beatingDistance(partial3));
+    result.target_hz.forEach((hz: number, k: number) => expect(Math.abs(cents(solid.bending[k]!.hz, hz)), `partial ${k + 1}`).toBeLessThanOrEqual(tolerance[k]!));
+  }, 300_000);
+
   it('--other-modes goes with --theory solid and takes clear or warn', async () => {
     const wrongTheory = await run(['design', 'fixtures/a2-blank.bar.json', '--note', 'A2', '--other-modes', 'warn']);
     expect(wrongTheory.code).toBe(2);

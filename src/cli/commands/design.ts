@@ -19,7 +19,8 @@ function otherModesLine(report: OtherModesReport): string {
       ? `Other modes (not kept clear: --other-modes warn): all clear of the tuned partials (${report.rule})${nearest ? `; nearest ${clearanceText(nearest)}` : ''}.`
       : `Other modes (not kept clear: --other-modes warn): ${report.after.filter((c) => !c.clear).map(clearanceText).join('; ')}.`;
   const was = asFound.length ? `on the arch made for the partials alone ${asFound.map(clearanceText).join('; ')}; ` : '';
-  if (!report.holds) return `Other modes: ${was}no arch tried keeps them clear (${report.rule}): ${report.after.filter((c) => !c.clear).map(clearanceText).join('; ')}.`;
+  const tried = report.uncut_ends_tried_mm.length ? `uncut ends tried up to ${fixed(Math.max(...report.uncut_ends_tried_mm), 1)} mm` : 'no narrower arch could be tried';
+  if (!report.holds) return `Other modes: ${report.after.filter((c) => !c.clear).map(clearanceText).join('; ')}; no arch keeps them clear with the partials on target (${tried}; ${report.rule}).`;
   const how = moved ? `keeping the arch ${fixed(moved.to, 1)} mm from each end (was ${fixed(moved.from, 1)} mm, ${report.solid_solves} more solid solves) clears them; ` : '';
   return `Other modes: ${was}${how}every torsion, lateral and longitudinal mode is clear of the tuned partials (${report.rule})${nearest ? `, nearest: ${clearanceText(nearest)}` : ''}.`;
 }
