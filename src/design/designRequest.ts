@@ -37,6 +37,13 @@ export interface DesignRequest {
   readonly remedy_kinds?: readonly RemedyKind[];
   /** Stop looking at the first remedy found (in the order cheapest kinds are searched); default false. */
   readonly remedy_first_only?: boolean;
+  /**
+   * Solid theory only (designBarSolid): keep every torsion, lateral and longitudinal mode farther
+   * from every tuned partial than the beating rule (6 Hz below 1 kHz, 15 Hz below 2 kHz, 30 Hz
+   * above) by narrowing the arch, and call the design infeasible when no arch tried does; false
+   * only reports them (default true).
+   */
+  readonly keep_other_modes_clear?: boolean;
 }
 
 /** Progress of a running design, for a worker to post; the callback may return false to stop. */

@@ -8,4 +8,5 @@ export * from './stationTable.ts';
 export * from './profileTemplateSvg.ts';
 export * from './workshopLimits.ts';
 export * from './designBarSolid.ts';
+export * from './otherModesClear.ts';
 export * from './templatePages.ts';

@@ -35,7 +35,8 @@ export function designKeyboardBar(job: KeyboardBarJob): StoredKeyboardBar {
   const design3d = (bar: typeof job.blank, given: DesignRequest): DesignResult => {
     const solid = designBarSolid(bar, given, {}, source);
     const { solid: report, theory: _theory, ...rest } = solid;
-    solidNote = `3D model: ${report.solid_solves} solid solves; the line model would call this arch ${report.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${c.toFixed(1)}`).join(' / ')} cents`;
+    const moved = report.collisions.uncut_end_mm;
+    solidNote = `3D model: ${report.solid_solves} solid solves; the line model would call this arch ${report.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${c.toFixed(1)}`).join(' / ')} cents${moved && report.collisions.holds ? `; the arch kept ${moved.to.toFixed(1)} mm from each end (not ${moved.from.toFixed(1)}) to keep the torsion and lateral modes clear of the partials` : ''}`;
     return { ...rest, theory: 'timoshenko' };
   };
   let solidNote: string | null = null;

@@ -45,3 +45,42 @@ export function collisionWarnings(bendingHz: readonly number[], others: readonly
   });
   return found.sort((a, b) => a.cents - b.cents).map((f) => f.text);
 }
+
+/** Where one other mode stands against the beating rule: its nearest tuned partial by the rule, and how far inside or outside. */
+export interface OtherModeClearance {
+  readonly family: OtherMode['family'];
+  readonly mode: number;
+  readonly hz: number;
+  /** The tuned partial (1-based) whose rule it comes closest to breaking, and that partial's Hz. */
+  readonly partial: number;
+  readonly partial_hz: number;
+  /** The other mode less the partial, Hz (negative: below it). */
+  readonly apart_hz: number;
+  /** The rule's distance at that partial, Hz (collisionDistanceHz). */
+  readonly allowed_hz: number;
+  /** |apart| − allowed, Hz: positive is clear, zero or less can beat. */
+  readonly margin_hz: number;
+  /** True when the mode is farther than the rule's distance from every tuned partial (margin > 0). */
+  readonly clear: boolean;
+}
+
+/**
+ * Each other mode against every tuned partial (all of `tunedHz`, Hz) by the beating rule
+ * (collisionDistanceHz): the partial where |f_other − f_partial| − distance is smallest, and that
+ * margin in Hz; a mode is clear when the margin is positive (a mode exactly at the distance is
+ * flagged, as collisionWarnings does). Sorted tightest first. Pure arithmetic in Hz.
+ */
+export function otherModeClearances(tunedHz: readonly number[], others: readonly OtherMode[]): OtherModeClearance[] {
+  const found: OtherModeClearance[] = [];
+  for (const other of others) {
+    let nearest: OtherModeClearance | undefined;
+    tunedHz.forEach((partial, index) => {
+      const apart = other.hz - partial;
+      const allowed = collisionDistanceHz(partial);
+      const margin = Math.abs(apart) - allowed;
+      if (!nearest || margin < nearest.margin_hz) nearest = { family: other.family, mode: other.mode, hz: other.hz, partial: index + 1, partial_hz: partial, apart_hz: apart, allowed_hz: allowed, margin_hz: margin, clear: margin > 0 };
+    });
+    if (nearest) found.push(nearest);
+  }
+  return found.sort((a, b) => a.margin_hz - b.margin_hz);
+}

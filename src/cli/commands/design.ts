@@ -1,4 +1,4 @@
-import { designBar, designBarSolid, type DesignRequest, type SolidDesignResult, parseToleranceList, profileTemplateSvg, stationTable, stationTableCsv, whereToCutMap, type CutLimitsInput } from '../../design/index.ts';
+import { clearanceText, designBar, designBarSolid, type DesignRequest, type OtherModesReport, type SolidDesignResult, parseToleranceList, profileTemplateSvg, stationTable, stationTableCsv, whereToCutMap, type CutLimitsInput } from '../../design/index.ts';
 import { InputError, parseWorkshopFile } from '../../fileFormats/index.ts';
 import { fixed, formatTable, numberOption, parseOptions, readJsonFile, toJson, type Command } from '../command.ts';
 import { readBarFile } from '../readBarFile.ts';
@@ -9,6 +9,22 @@ const positive = (n: number): string | null => (n > 0 ? null : 'must be greater 
 const signed = (c: number): string => `${c >= 0 ? '+' : '−'}${Math.abs(c).toFixed(2)}`;
 const nonNegative = (n: number): string | null => (n >= 0 ? null : 'must be 0 or more');
 
+/** The solid design's other modes against the beating rule, in one line. */
+function otherModesLine(report: OtherModesReport): string {
+  const nearest = report.after[0];
+  const moved = report.uncut_end_mm;
+  const asFound = report.before.filter((c) => !c.clear);
+  if (!report.kept_clear)
+    return report.holds
+      ? `Other modes (not kept clear: --other-modes warn): all clear of the tuned partials (${report.rule})${nearest ? `; nearest ${clearanceText(nearest)}` : ''}.`
+      : `Other modes (not kept clear: --other-modes warn): ${report.after.filter((c) => !c.clear).map(clearanceText).join('; ')}.`;
+  const was = asFound.length ? `on the arch made for the partials alone ${asFound.map(clearanceText).join('; ')}; ` : '';
+  const tried = report.uncut_ends_tried_mm.length ? `uncut ends tried up to ${fixed(Math.max(...report.uncut_ends_tried_mm), 1)} mm` : 'no narrower arch could be tried';
+  if (!report.holds) return `Other modes: ${report.after.filter((c) => !c.clear).map(clearanceText).join('; ')}; no arch keeps them clear with the partials on target (${tried}; ${report.rule}).`;
+  const how = moved ? `keeping the arch ${fixed(moved.to, 1)} mm from each end (was ${fixed(moved.from, 1)} mm, ${report.solid_solves} more solid solves) clears them; ` : '';
+  return `Other modes: ${was}${how}every torsion, lateral and longitudinal mode is clear of the tuned partials (${report.rule})${nearest ? `, nearest: ${clearanceText(nearest)}` : ''}.`;
+}
+
 /** `barwright design BAR (--note NAME | --hz F) …`: plans an undercut (contract). */
 export const designCommand: Command = {
   name: 'design',
@@ -16,7 +32,7 @@ export const designCommand: Command = {
   usage:
     'barwright design BAR (--note NAME | --hz F) [--a4 HZ] [--ratios 1:4:10|1:4|1:3|1:3:6|fundamental|A:B:C] [--tolerance-cents 2,5,15] ' +
     '[--workshop FILE] [--min-thickness-mm T] [--uncut-end-mm L] [--max-slope S] [--tool-radius-mm R] [--allow-shortening [--max-shortening-mm M]] ' +
-    '[--theory timoshenko|euler-bernoulli|solid] [--session SESSION [--lots LOTS]] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
+    '[--theory timoshenko|euler-bernoulli|solid [--other-modes clear|warn]] [--session SESSION [--lots LOTS]] [--out FILE.bar.json] [--template FILE.svg] [--table FILE.csv] [--map] [--json]',
   async run(args, io) {
     const { values, positionals } = parseOptions(args, {
       note: { type: 'string' },
@@ -32,6 +48,7 @@ export const designCommand: Command = {
       'allow-shortening': { type: 'boolean' },
       'max-shortening-mm': { type: 'string' },
       theory: { type: 'string' },
+      'other-modes': { type: 'string' },
       session: { type: 'string' },
       lots: { type: 'string' },
       out: { type: 'string' },
@@ -45,6 +62,9 @@ export const designCommand: Command = {
     const theory = values.theory ?? 'timoshenko';
     if (theory !== 'timoshenko' && theory !== 'euler-bernoulli' && theory !== 'solid') throw new InputError('command line', '--theory', `must be timoshenko, euler-bernoulli or solid (got "${theory}")`);
     const lineTheory = theory === 'solid' ? 'timoshenko' : theory;
+    const otherModes = values['other-modes'];
+    if (otherModes !== undefined && otherModes !== 'clear' && otherModes !== 'warn') throw new InputError('command line', '--other-modes', `must be clear or warn (got "${otherModes}")`);
+    if (otherModes !== undefined && theory !== 'solid') throw new InputError('command line', '--other-modes', 'goes with --theory solid (the line model only warns)');
     const hz = numberOption(values.hz, 'hz', positive);
     const a4 = numberOption(values.a4, 'a4', positive);
     const limits: CutLimitsInput = {};
@@ -74,6 +94,7 @@ export const designCommand: Command = {
       limits_given_by: 'given on the command line',
       ...(workshop ? { workshop } : {}),
       theory: lineTheory,
+      ...(otherModes === 'warn' ? { keep_other_modes_clear: false } : {}),
     };
     if (values.lots !== undefined && values.session === undefined) throw new InputError('command line', '--lots', 'goes with --session (the lot of the session’s bar)');
     const calibrated = values.session === undefined ? null : await sessionSummary(values.session, values.lots, io);
@@ -140,8 +161,9 @@ export const designCommand: Command = {
     }
     if (solid)
       lines.push(
-        `Solid model: ${solid.solid.solid_solves} solid solves; the line model's targets corrected ${solid.solid.solid_solves - 1} time${solid.solid.solid_solves === 2 ? '' : 's'} until the solid partials met the tolerances${solid.solid.converged ? '' : ' (they did not)'}. The line model alone would call this arch ${solid.solid.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${fixed(c, 1)}`).join(' / ')} cents.`,
+        `Solid model: ${solid.solid.solid_solves} solid solves; the line model's targets corrected ${solid.solid.rounds.length - 1} time${solid.solid.rounds.length === 2 ? '' : 's'} until the solid partials met the tolerances${solid.solid.converged ? '' : ' (they did not)'}. The line model alone would call this arch ${solid.solid.line_model_cents.map((c) => `${c >= 0 ? '+' : ''}${fixed(c, 1)}`).join(' / ')} cents.`,
       );
+    if (solid) lines.push(otherModesLine(solid.solid.collisions));
     for (const warning of result.warnings) lines.push(`Warning: ${warning}`);
     lines.push('');
     lines.push('Thickness every 5 mm from the centre line (rows inside the cut, the cord holes and the ends):');
