@@ -60,6 +60,16 @@ function parseTime(source: string, field: string, value: unknown): string {
   return value;
 }
 
+/**
+ * A torsion or sideways mode as read, Hz: above the fundamental (on a bar, both lie above it) and
+ * below 20 kHz, or an InputError naming the field.
+ */
+function otherModeHz(source: string, field: string, value: unknown, partials: readonly number[]): number {
+  const hz = number(source, field, value, 'Hz');
+  if (hz <= partials[0]! || hz >= 20_000) throw new InputError(source, field, `${hz} Hz must lie above the fundamental (${partials[0]} Hz) and below 20 000 Hz`);
+  return hz;
+}
+
 /** Validates one step; `field` is its place in the file (`steps[3]`), used in every message. */
 export function parseSessionLogStep(source: string, field: string, value: unknown): SessionLogStep {
   if (!isJsonObject(value)) throw new InputError(source, field, 'must be an object with "bar" and "measured_hz"');
@@ -75,6 +85,8 @@ export function parseSessionLogStep(source: string, field: string, value: unknow
     throw new InputError(source, `${field}.thickness_measured_mm`, 'give the caliper readings once, as measured_thickness_mm (thickness_measured_mm is the older name of the same field)');
   if (value.measured_thickness_mm !== undefined) step.measured_thickness_mm = parseMeasuredThicknesses(source, `${field}.measured_thickness_mm`, value.measured_thickness_mm, bar);
   else if (value.thickness_measured_mm !== undefined) step.measured_thickness_mm = parseMeasuredThicknesses(source, `${field}.thickness_measured_mm`, value.thickness_measured_mm, bar);
+  if (value.measured_torsion_hz !== undefined) step.measured_torsion_hz = otherModeHz(source, `${field}.measured_torsion_hz`, value.measured_torsion_hz, step.measured_hz);
+  if (value.measured_lateral_hz !== undefined) step.measured_lateral_hz = otherModeHz(source, `${field}.measured_lateral_hz`, value.measured_lateral_hz, step.measured_hz);
   if (value.air_temperature_c !== undefined) step.air_temperature_c = parseTemperature(source, `${field}.air_temperature_c`, value.air_temperature_c);
   if (value.note !== undefined) {
     if (typeof value.note !== 'string') throw new InputError(source, `${field}.note`, 'must be text');

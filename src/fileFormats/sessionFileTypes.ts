@@ -41,6 +41,10 @@ export interface SessionLogStep {
    * barwright's older name `thickness_measured_mm`: it is read into this field.
    */
   measured_thickness_mm?: [number, number][];
+  /** The first torsion (twisting) mode as read, Hz: with the solid model it tells how the growth rings run. */
+  measured_torsion_hz?: number;
+  /** The first sideways (lateral) bending mode as read, Hz: likewise. */
+  measured_lateral_hz?: number;
   /** Air temperature when the bar was struck, °C: the reading is projected from it to the playing temperature. */
   air_temperature_c?: number;
   /** When the cut before this step was finished (ISO 8601): a reading within 10 minutes of it is from a warm bar. */

@@ -10,6 +10,7 @@ import { solidBendingPartials } from '../modes/solidBendingPartials.ts';
 import { bendingSensitivities } from '../modes/bendingSensitivities.ts';
 import { defaultStepPolicy } from './stepPolicy.ts';
 import { fitSolidWood, solidPartialCents, type SolidWoodFit } from './fitSolidWood.ts';
+import { fitSolidGrain } from './fitSolidGrain.ts';
 
 /**
  * One-sigma of the solid model's correction prior, per unit arch depth (barwright's own: with the
@@ -52,6 +53,8 @@ export interface SolidSessionReport {
   shear_scale: number;
   /** Reading − solid model with the fitted wood, cents per partial read: what the two constants cannot explain. */
   fit_residual_cents: number[];
+  /** The grain fitted to a torsion or sideways mode read on the bar now (ring angle, degrees, 0 quarter-sawn, 90 flat-sawn) and reading − model, Hz; null when none was read. */
+  grain: { ring_angle_deg: number; residual_hz: { torsion?: number; lateral?: number } } | null;
   /** The planned shape's arch depth (1 − thinnest/blank); null when the bar is too shallow for a correction. */
   arch_depth: number | null;
   /** Solid minus line model on the planned shape, cents per partial (negative: the line model is sharp); empty when shallow. */
@@ -75,16 +78,22 @@ function woodNow(session: unknown, source: string, calibratedNow: BarModel): Bar
 }
 
 /**
- * The next cut with the solid model in the calibration. (1) Plan as nextCut does. (2) Fit the wood on the solid model to the bar as it is now (fitSolidWood: the
- * stiffness along the grain and the shear stiffness, from the line calibration's E and G). (3)
- * Analyse the planned shape on the solid model with that wood and on the line model with the
- * calibrated E and G; give the calibration their gap per unit arch depth as the correction's prior
- * (±solidCorrectionSigma) and plan again, again on the new plan while the gap there differs from
- * what the prior assumed by more than 3 cents (the gap grows faster than the depth; at most 3
- * analyses). The readings still move the correction: the solid model replaces the guess of zero a
- * session starts from, so the line model's form error no longer costs cuts. About a second per
- * solid analysis, 3–7 in all. Rectangular bars only: others get nextCut's answer with `solid: null`;
- * a bar barely cut gets the fitted wood reported and no correction.
+ * The next cut with the solid model in the calibration.
+ * 1. Plan as nextCut does (the line model, calibrated to every reading of the session).
+ * 2. Fit the wood on the solid model to the bar as it is now (fitSolidWood: the stiffness along
+ *    the grain and the shear stiffness, from the line calibration's E and G), and the grain when a
+ *    torsion or sideways mode was read on it (fitSolidGrain).
+ * 3. Closing in (every partial within 50 cents), give the planner the solid model's own thickness
+ *    sensitivities less the line model's (SolidSlope): small steps then move as the solid model
+ *    says, which the line model's per-partial correction cannot (it scales with the arch's depth,
+ *    not with where a small cut is taken).
+ * 4. Analyse the planned shape on the solid model and on the line model; give the calibration
+ *    their gap per unit arch depth as the correction's prior (±solidCorrectionSigma) and plan
+ *    again, again on the new plan while the gap there differs from what the prior assumed by more
+ *    than 3 cents (at most 3 analyses). The readings still move the correction.
+ * The step policy is nextCut's (defaultStepPolicy unless given). About a second per solid
+ * analysis, 3–8 in all (more with an off-axis grain, which solves the full body). Rectangular bars
+ * only: others get nextCut's answer with `solid: null`.
  */
 export function nextCutSolid(session: unknown, options: NextCutOptions = {}): SolidNextCutResult {
   const policy = options.policy ?? defaultStepPolicy;
@@ -95,9 +104,25 @@ export function nextCutSolid(session: unknown, options: NextCutOptions = {}): So
   const tuned = result.target_hz.length;
   const read = Math.min(tuned, result.readings_at_playing_temperature_hz.length);
   const readingCents = result.readings_at_playing_temperature_hz.slice(0, read).map((hz) => 1200 * Math.log2(hz));
-  const scale = (result.calibrated_material.E_GPa * 1e9) / now.material.youngModulus;
-  const wood: SolidWoodFit = fitSolidWood(now, readingCents, { scale, shearRatio: (result.calibrated_material.G_GPa * 1e9) / now.material.shearModulus / scale });
+  let wood: SolidWoodFit = fitSolidWood(now, readingCents, { young: (result.calibrated_material.E_GPa * 1e9) / now.material.youngModulus, shear: (result.calibrated_material.G_GPa * 1e9) / now.material.shearModulus });
   let solves = wood.solves;
+  // A torsion or sideways mode read on the bar now tells the grain (moved to the playing temperature as the partials are).
+  const last = parseSessionFile(session, options.source ?? 'session').steps.at(-1)!;
+  const shift = 2 ** (result.temperature.shift_cents / 1200);
+  const otherReadings = { ...(last.measured_torsion_hz === undefined ? {} : { torsionHz: last.measured_torsion_hz * shift }), ...(last.measured_lateral_hz === undefined ? {} : { lateralHz: last.measured_lateral_hz * shift }) };
+  const grainWarnings: string[] = [];
+  const grain = Object.keys(otherReadings).length > 0 && wood.material.elasticity?.kind === 'orthotropic' ? fitSolidGrain({ ...now, material: wood.material }, otherReadings) : null;
+  if (grain) {
+    solves += grain.solves;
+    const given = wood.material.elasticity?.kind === 'orthotropic' ? wood.material.elasticity.constants.shearLongitudinalRadial : 1;
+    const fitted = grain.material.elasticity?.kind === 'orthotropic' ? grain.material.elasticity.constants.shearLongitudinalRadial : 1;
+    wood = { ...wood, material: grain.material, shearScale: (wood.shearScale * fitted) / given };
+    const believed = now.material.elasticity?.kind === 'orthotropic' ? now.material.elasticity.grain.ringAngle : 0;
+    if (Math.abs(grain.ringAngle - believed) > (20 * Math.PI) / 180)
+      grainWarnings.push(
+        `the ${otherReadings.torsionHz !== undefined ? 'torsion' : 'sideways'} mode read says the growth rings run at about ${Math.round((grain.ringAngle * 180) / Math.PI)}° to the thickness, where the bar file says ${Math.round((believed * 180) / Math.PI)}°: the solid model uses the fitted grain; correct the bar file if the end grain agrees`,
+      );
+  }
   // Closing in, the solid model's own sensitivities set the change to first order (SolidSlope).
   const closing = Math.max(...result.now_cents.map(Math.abs)) <= closeInCents;
   const solidSlope = closing ? slopeOf(first.shapes.now, wood.material, result.calibrated_material, tuned) : undefined;
@@ -129,6 +154,9 @@ export function nextCutSolid(session: unknown, options: NextCutOptions = {}): So
   if (solidSlope && !replanned) result = planNextCut(session, { ...options, policy, solidSlope }).result;
   return {
     ...result,
-    solid: { E_L_GPa: wood.youngLongitudinal / 1e9, shear_scale: wood.shearScale, fit_residual_cents: wood.residualCents, arch_depth: depthPlanned, solid_minus_line_cents: gap, correction_per_depth: perDepth, solid_sensitivities: solidSlope !== undefined, solid_solves: solves },
+    warnings: [...result.warnings, ...grainWarnings],
+    solid: {
+      E_L_GPa: wood.youngLongitudinal / 1e9,
+      grain: grain ? { ring_angle_deg: (grain.ringAngle * 180) / Math.PI, residual_hz: grain.residualHz } : null, shear_scale: wood.shearScale, fit_residual_cents: wood.residualCents, arch_depth: depthPlanned, solid_minus_line_cents: gap, correction_per_depth: perDepth, solid_sensitivities: solidSlope !== undefined, solid_solves: solves },
   };
 }

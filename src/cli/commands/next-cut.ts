@@ -38,6 +38,11 @@ function formatNextCut(result: NextCutResult, title: string, solid: SolidSession
     lines.push(
       `Wood fitted on the solid model to the bar now: E along the grain ${fixed(solid.E_L_GPa, 2)} GPa, shear moduli ×${fixed(solid.shear_scale, 2)} of the bar file's; readings − model ${solid.fit_residual_cents.map((r) => signed(r, 1)).join(', ')} cents`,
     );
+    if (solid.grain)
+      lines.push(
+        `Grain fitted to the ${Object.keys(solid.grain.residual_hz).join(' and ')} mode read: growth rings at ${fixed(solid.grain.ring_angle_deg, 0)}° to the thickness (0 quarter-sawn, 90 flat-sawn); reading − model ${Object.values(solid.grain.residual_hz).map((r) => signed(r, 1)).join(', ')} Hz`,
+      );
+    if (solid.solid_sensitivities) lines.push('Closing in: the cut is planned with the solid model\'s own thickness sensitivities');
     if (solid.arch_depth !== null)
       lines.push(
         `Solid model on the planned shape (arch depth ${fixed(solid.arch_depth, 2)}): ${solid.solid_minus_line_cents.map((g) => signed(g, 1)).join(', ')} cents against the line model, given to the correction as its prior (${solid.solid_solves} solid analyses in all)`,
