@@ -11,6 +11,7 @@ export * from './cutLimitsInput.ts';
 export * from './barFileMaterial.ts';
 export * from './barFile.ts';
 export * from './sessionFile.ts';
+export { otherModeCeilingHz, otherModeHz } from './sessionFileSteps.ts';
 export * from './sessionLogEdits.ts';
 export * from './lotFile.ts';
 export * from './keyboardFileTypes.ts';

@@ -60,13 +60,17 @@ function parseTime(source: string, field: string, value: unknown): string {
   return value;
 }
 
+/** Highest torsion or sideways mode a step may record, Hz (exclusive): the top of hearing. */
+export const otherModeCeilingHz = 20_000;
+
 /**
- * A torsion or sideways mode as read, Hz: above the fundamental (on a bar, both lie above it) and
- * below 20 kHz, or an InputError naming the field.
+ * A torsion or sideways mode as read, Hz: above the fundamental `partials[0]` (on a bar, both lie
+ * above it) and below otherModeCeilingHz, or an InputError naming the field. The session parser's
+ * rule, also applied where the workbench records a round.
  */
-function otherModeHz(source: string, field: string, value: unknown, partials: readonly number[]): number {
+export function otherModeHz(source: string, field: string, value: unknown, partials: readonly number[]): number {
   const hz = number(source, field, value, 'Hz');
-  if (hz <= partials[0]! || hz >= 20_000) throw new InputError(source, field, `${hz} Hz must lie above the fundamental (${partials[0]} Hz) and below 20 000 Hz`);
+  if (hz <= partials[0]! || hz >= otherModeCeilingHz) throw new InputError(source, field, `${hz} Hz must lie above the fundamental (${partials[0]} Hz) and below 20 000 Hz`);
   return hz;
 }
 

@@ -3,6 +3,7 @@
 // instrument. Times are passed in (ISO 8601) so the edits stay pure and testable.
 import { parseBarFile, type BarFile } from '../fileFormats/barFile.ts';
 import { InputError } from '../fileFormats/InputError.ts';
+import { otherModeHz } from '../fileFormats/sessionFileSteps.ts';
 import { defaultShortenAt } from '../session/index.ts';
 import { checkBlankRanges } from './blankRanges.ts';
 import type { BarState, CutAdvice, DesignRecord, Instrument, ProjectBar, ProjectFile, Register, SessionStep } from './projectFileTypes.ts';
@@ -176,6 +177,9 @@ export interface RecordStepOptions {
   airTemperatureC?: number;
   /** Caliper readings `[x_mm, thickness_mm]` taken with this round (usually at the advised checkpoints). */
   measuredThicknessMm?: readonly (readonly [number, number])[];
+  /** The first twisting (torsion) and sideways (lateral) modes heard with this round, Hz (above the fundamental, below 20 kHz). */
+  torsionHz?: number;
+  lateralHz?: number;
 }
 
 /** Records a measured round against the bar as it is now; the bar becomes "tuning". */
@@ -187,6 +191,8 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
   });
   if (options.airTemperatureC !== undefined && !(Number.isFinite(options.airTemperatureC) && options.airTemperatureC >= -30 && options.airTemperatureC <= 60))
     throw new InputError('round', 'air_temperature_c', `${options.airTemperatureC} °C is outside −30 to 60 °C`);
+  const torsionHz = options.torsionHz === undefined ? undefined : otherModeHz('round', 'measured_torsion_hz', options.torsionHz, measuredHz);
+  const lateralHz = options.lateralHz === undefined ? undefined : otherModeHz('round', 'measured_lateral_hz', options.lateralHz, measuredHz);
   return replaceBar(project, barId, (bar) => {
     const step: SessionStep = { bar: structuredClone(bar.current), measured_hz: [...measuredHz], recorded_at: options.at };
     if (options.source) step.source = options.source;
@@ -203,6 +209,8 @@ export function recordStep(project: ProjectFile, barId: string, measuredHz: read
     if (cutSince && bar.cut_finished_at !== undefined && Date.parse(bar.cut_finished_at) <= Date.parse(options.at) && (!previous?.recorded_at || Date.parse(bar.cut_finished_at) >= Date.parse(previous.recorded_at)))
       step.cut_finished_at = bar.cut_finished_at;
     if (options.airTemperatureC !== undefined) step.air_temperature_c = options.airTemperatureC;
+    if (torsionHz !== undefined) step.measured_torsion_hz = torsionHz;
+    if (lateralHz !== undefined) step.measured_lateral_hz = lateralHz;
     if (options.measuredThicknessMm && options.measuredThicknessMm.length > 0) step.measured_thickness_mm = options.measuredThicknessMm.map(([x, t]) => [x, t]);
     const predicted = bar.expected_hz ?? options.predictedHz;
     if (predicted && predicted.length > 0 && predicted.every((hz) => Number.isFinite(hz) && hz > 0)) step.predicted_hz = [...predicted];

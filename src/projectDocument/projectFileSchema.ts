@@ -134,6 +134,14 @@ const designSchema = z.looseObject({
   planned_at: isoTime,
 });
 
+/** What the 3D model said in a step (SolidSessionReport): the fitted wood is checked, the rest kept as given. */
+const solidReportSchema = z.looseObject({
+  E_L_GPa: positive('GPa'),
+  shear_scale: positive('(a share of the bar file’s shear moduli)'),
+  solid_sensitivities: z.boolean({ error: 'must be true or false' }),
+  solid_solves: z.number({ error: 'must be a whole number' }).int({ error: 'must be a whole number' }).min(0, { error: 'must be 0 or more' }),
+});
+
 const adviceSchema = z.looseObject({
   status: z.enum(['cut', 'done', 'stuck'], { error: 'must be "cut", "done" or "stuck"' }),
   bar_after: barFileSchema,
@@ -142,6 +150,8 @@ const adviceSchema = z.looseObject({
   reason: z.string().optional(),
   checkpoints: checkpointsSchema.optional(),
   lot_record: lotRecordSchema.optional(),
+  theory: z.enum(['line', 'solid'], { error: 'must be "line" or "solid"' }).optional(),
+  solid: solidReportSchema.nullable().optional(),
   from_steps: z.number().int({ error: 'must be a whole number' }).min(0, { error: 'must be 0 or more' }),
   advised_at: isoTime,
 });

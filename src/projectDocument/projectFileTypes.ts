@@ -8,6 +8,7 @@ import type { LotBarRecord } from '../fileFormats/lotFile.ts';
 import type { ChimeSetFile } from '../fileFormats/chimeSetFile.ts';
 import type { KeyboardPlanRecord } from './projectKeyboardPlan.ts';
 import type { Workshop } from '../fileFormats/workshopFile.ts';
+import type { SolidSessionReport } from '../session/index.ts';
 
 /** What a session aims at: a frequency or a note at an A4, ratios and tolerances. */
 export interface SessionTarget {
@@ -45,6 +46,10 @@ export interface SessionStep {
   cut_finished_at?: string;
   /** Caliper readings `[x_mm, thickness_mm]` taken with this round. */
   measured_thickness_mm?: [number, number][];
+  /** The first twisting (torsion) mode heard with this round, Hz. */
+  measured_torsion_hz?: number;
+  /** The first sideways (lateral) mode heard with this round, Hz. */
+  measured_lateral_hz?: number;
 }
 
 /** A place to check a cut with the caliper, and the thickness to expect there (mm). */
@@ -95,6 +100,10 @@ export interface CutAdvice {
   checkpoints?: CaliperCheckpoint[];
   /** With a done verdict: what the finished bar teaches its lot (kept in the project's lots when it is marked done). */
   lot_record?: LotBarRecord;
+  /** The model the advice was worked out on: absent or 'line' the line model (nextCut), 'solid' the 3D model too (nextCutSolid). */
+  theory?: 'line' | 'solid';
+  /** With theory 'solid': what the 3D model said (the fitted wood, the grain, how the cut was planned); null when it was not consulted. */
+  solid?: SolidSessionReport | null;
   /** Number of session steps the advice was computed from (stale when steps change). */
   from_steps: number;
   advised_at: string;

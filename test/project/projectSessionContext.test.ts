@@ -76,6 +76,22 @@ describe('a round in the project', () => {
     expect(error.rule).toMatch(/outside −30 to 60 °C/);
   });
 
+  it('records the twisting and sideways modes heard with it, kept through the project file; refuses one at or below the fundamental or at 20 kHz by the session file’s rule', () => {
+    const project = recordStep(demo(), 'bar-A4', [440, 1758, 4400], { at: '2025-04-01T10:00:00.000Z', torsionHz: 1320.5, lateralHz: 2210 });
+    const step = bar(project, 'bar-A4').session.steps.at(-1)!;
+    expect(step.measured_torsion_hz).toBe(1320.5);
+    expect(step.measured_lateral_hz).toBe(2210);
+    expect(parseProjectFile(JSON.parse(serializeProjectFile(project)), 'again')).toEqual(project);
+    // Without them, the step has neither field (files without them behave as before).
+    const plain = bar(recordStep(demo(), 'bar-A4', [440], { at: '2025-04-01T10:00:00.000Z' }), 'bar-A4').session.steps.at(-1)!;
+    expect('measured_torsion_hz' in plain || 'measured_lateral_hz' in plain).toBe(false);
+    const low = thrown(() => recordStep(demo(), 'bar-A4', [440, 1758], { at: '2025-04-01T10:00:00.000Z', torsionHz: 440 }));
+    expect(low.field).toBe('measured_torsion_hz');
+    expect(low.rule).toBe('440 Hz must lie above the fundamental (440 Hz) and below 20 000 Hz');
+    const high = thrown(() => recordStep(demo(), 'bar-A4', [440, 1758], { at: '2025-04-01T10:00:00.000Z', lateralHz: 20_000 }));
+    expect(high.field).toBe('measured_lateral_hz');
+  });
+
   it('keeps when an advised cut was finished and its checkpoints until the next round, which records the time; a re-strike does not', () => {
     const project = demo();
     const a2 = bar(project, 'bar-A2');
