@@ -1,14 +1,17 @@
 // Typing the partials heard: one field per partial, Enter moves to the next and, on the last,
 // records the round. Filled in when listening hears the bar. Fires `round-submit`.
 // A heard frequency is kept as the number it is: the field shows it rounded, and the round
-// records the full value unless the maker types over it (then the typed number counts).
+// records the full value unless the maker types over it (then the typed number counts). The
+// twisting and sideways modes, when read, go with the round (bw-other-mode-fields).
 import { LitElement, html, css, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { formatHz, partialName } from '../format.ts';
+import type { BwOtherModeFields, OtherModeReadings } from './bw-other-mode-fields.ts';
+import './bw-other-mode-fields.ts';
 
 /** Detail of `round-submit`. */
-export interface RoundSubmitDetail {
+export interface RoundSubmitDetail extends OtherModeReadings {
   hz: number[];
   source: 'typed' | 'microphone' | 'file';
 }
@@ -119,13 +122,26 @@ export class BwPartialEntry extends LitElement {
     this.errors = errors;
   }
 
+  private get otherModes(): BwOtherModeFields | null {
+    return this.renderRoot.querySelector('bw-other-mode-fields');
+  }
+
+  /** The fundamental as entered so far, Hz (null while it is not a frequency). */
+  private fundamentalHz(): number | null {
+    const text = (this.texts[0] ?? '').trim().replace(',', '.');
+    const value = this.heard[0] ?? (text === '' ? NaN : Number(text));
+    return Number.isFinite(value) && value > 0 ? value : null;
+  }
+
   private submit(): void {
     const values = this.check();
-    if (!values) return;
-    this.dispatchEvent(new CustomEvent<RoundSubmitDetail>('round-submit', { detail: { hz: values, source: this.source }, bubbles: true, composed: true }));
+    const others = this.otherModes?.readings() ?? {};
+    if (!values || !others) return;
+    this.dispatchEvent(new CustomEvent<RoundSubmitDetail>('round-submit', { detail: { hz: values, source: this.source, ...others }, bubbles: true, composed: true }));
     this.texts = [];
     this.heard = [];
     this.source = 'typed';
+    this.otherModes?.clear();
   }
 
   /** Clears the fields (after a round was recorded elsewhere). */
@@ -133,6 +149,7 @@ export class BwPartialEntry extends LitElement {
     this.texts = [];
     this.heard = [];
     this.errors = [];
+    this.otherModes?.clear();
   }
 
   private onKey(event: KeyboardEvent, index: number): void {
@@ -174,6 +191,7 @@ export class BwPartialEntry extends LitElement {
           </div>`;
         })}
       </div>
+      <bw-other-mode-fields .fundamentalHz=${this.fundamentalHz()} @other-modes-enter=${this.submit}></bw-other-mode-fields>
       <div class="actions row">
         <button class="primary" @click=${this.submit} data-testid="record-round">Record this round</button>
         <span class="muted">Enter moves to the next partial; Enter on the last records.</span>

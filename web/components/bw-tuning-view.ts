@@ -23,14 +23,15 @@ import {
   setMinimumThickness,
   stableHash,
   tunedByLength,
-  warmBarMinutes,
   type NextCutResult,
   type ProjectBar,
   type ProjectFile,
 } from '../../src/index.ts';
-import { TaskController, workerJob, type TaskProblem } from '../controllers/TaskController.ts';
-import { solver } from '../worker/SolverClient.ts';
+import { TaskController, workerJob } from '../controllers/TaskController.ts';
+import { solidSolver, solver } from '../worker/SolverClient.ts';
 import type { AnalyzeResult, NextCutAdvice } from '../worker/solverProtocol.ts';
+import { rememberedAdviceTheory, type AdviceTheory } from '../adviceTheory.ts';
+import { adviceFor, adviceProblemText, cutSinceLastRound, lastAirC, restingSince } from '../tuningRound.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
 import { NavigateEvent, sendEdit } from '../events.ts';
 import { formatHz, formatNumber, formatRatios, formatWhen, partialName } from '../format.ts';
@@ -51,6 +52,8 @@ import './bw-number-field.ts';
 import './bw-cut-advice.ts';
 import './bw-length-trim.ts';
 import './bw-shortening-switch.ts';
+import './bw-advice-theory.ts';
+import './bw-solid-advice-summary.ts';
 
 /** The listening element, when its module is part of this build. */
 const listenModules = import.meta.glob('./bw-listen.ts');
@@ -145,17 +148,20 @@ export class BwTuningView extends LitElement {
   @state() private actionError = '';
   /** The air temperature and caliper readings to go with the next round. */
   @state() private conditions: RoundConditions = { airC: null, readings: [] };
+  /** The model the advice is worked out on (the maker's choice, remembered in this browser). */
+  @state() private theory: AdviceTheory = rememberedAdviceTheory();
 
   /** Prediction for the present shape from the starting-guess material (before calibration), per bar. */
   private readonly prediction = new TaskController<AnalyzeResult>(this, { policy: 'latest' });
   /**
    * Next-cut advice, per bar: stored on the bar whose session it was worked out from, and dropped
-   * if that session changed meanwhile (a round recorded or removed).
+   * if that session or the model asked for changed meanwhile (a round recorded or removed, the 3D
+   * model switched on or off).
    */
   private readonly advice = new TaskController<NextCutAdvice>(this, {
     isCurrent: (binding) => {
       const bar = this.project?.bars.find((candidate) => candidate.id === binding.subject);
-      return bar !== undefined && this.project !== null && stableHash(this.advicePayload(this.project, bar)) === binding.key;
+      return bar !== undefined && this.project !== null && this.adviceKey(this.project, bar) === binding.key;
     },
     onResult: (result, binding) => {
       const sent = sendEdit(this, (project) => setAdvice(project, binding.subject, result, new Date().toISOString()));
@@ -201,9 +207,9 @@ export class BwTuningView extends LitElement {
     }
     const steps = bar.session.steps.length;
     // Advice is for the bar as last measured: once it has been cut again, the next thing is a round.
-    if (steps > 0 && bar.state !== 'done' && !this.cutSinceLastRound(bar) && (!bar.advice || bar.advice.from_steps !== steps)) {
+    if (steps > 0 && bar.state !== 'done' && !cutSinceLastRound(bar) && !adviceFor(bar, this.theory)) {
       const working = this.advice.state(bar.id);
-      const asked = working.binding?.key === stableHash(this.advicePayload(this.project, bar));
+      const asked = working.binding?.key === this.adviceKey(this.project, bar);
       // Asked for these very rounds: wait for it, or show its problem (with "Try again").
       if (!asked || (!working.running && !working.problem)) this.requestAdvice(bar);
     }
@@ -220,45 +226,23 @@ export class BwTuningView extends LitElement {
     return `${JSON.stringify(bar.current)}:${bar.session.steps.length > 0 ? stableHash(this.advicePayload(project, bar)) : ''}`;
   }
 
-  /** The air temperature of the bar's last round, if recorded, °C. */
-  private lastAirC(bar: ProjectBar): number | null {
-    for (let index = bar.session.steps.length - 1; index >= 0; index--) {
-      const air = bar.session.steps[index]!.air_temperature_c;
-      if (air !== undefined) return air;
-    }
-    return null;
-  }
-
-  /**
-   * When the cut the bar may still be warm from was finished, for the rest timer: the last cut's
-   * time until the bar is struck, and after a round struck while it was warm (until the re-strike);
-   * empty otherwise.
-   */
-  private restingSince(bar: ProjectBar): string {
-    const finished = bar.cut_finished_at;
-    if (!finished) return '';
-    if (this.cutSinceLastRound(bar)) return finished;
-    const last = bar.session.steps[bar.session.steps.length - 1];
-    const warm = last?.cut_finished_at === finished && Date.parse(last.recorded_at ?? '') - Date.parse(finished) < warmBarMinutes * 60_000;
-    return warm ? finished : '';
-  }
-
-  /** True when the bar's shape differs from the one last struck (a cut was made since). */
-  private cutSinceLastRound(bar: ProjectBar): boolean {
-    const last = bar.session.steps[bar.session.steps.length - 1];
-    return last !== undefined && JSON.stringify(last.bar) !== JSON.stringify(bar.current);
-  }
-
   /** The session as the advice uses it (at the playing temperature) and what the bar's lot taught. */
   private advicePayload(project: ProjectFile, bar: ProjectBar) {
     return { session: barSession(project, bar), lot: barLotPrior(project, bar) };
   }
 
-  /** Works out the next cut from `bar`'s session (stored on that bar when done). */
+  /** The fingerprint of the advice asked for `bar`: its session, its lot and the model chosen (a line-model answer never stands for a 3D one). */
+  private adviceKey(project: ProjectFile, bar: ProjectBar): string {
+    return stableHash({ ...this.advicePayload(project, bar), theory: this.theory });
+  }
+
+  /** Works out the next cut from `bar`'s session on the chosen model (stored on that bar when done). */
   private requestAdvice(bar: ProjectBar): void {
-    const payload = this.advicePayload(this.project!, bar);
     // A done verdict comes with what the bar teaches its lot (kept when it is marked done).
-    this.advice.run({ subject: bar.id, key: stableHash(payload) }, workerJob(solver, 'nextCut', { ...payload, learn: { bar: bar.id, note: bar.note } }));
+    const payload = { ...this.advicePayload(this.project!, bar), learn: { bar: bar.id, note: bar.note } };
+    const binding = { subject: bar.id, key: this.adviceKey(this.project!, bar) };
+    if (this.theory === 'solid') this.advice.run(binding, workerJob(solidSolver, 'nextCutSolid', payload));
+    else this.advice.run(binding, workerJob(solver, 'nextCut', payload));
   }
 
   /** The latest prediction for the bar on screen (perhaps for its shape or rounds before the last change: for labels and drawings). */
@@ -307,6 +291,8 @@ export class BwTuningView extends LitElement {
     if (predicted) options.predictedHz = predicted;
     if (this.conditions.airC !== null) options.airTemperatureC = this.conditions.airC;
     if (this.conditions.readings.length > 0) options.measuredThicknessMm = this.conditions.readings;
+    if (event.detail.torsionHz !== undefined) options.torsionHz = event.detail.torsionHz;
+    if (event.detail.lateralHz !== undefined) options.lateralHz = event.detail.lateralHz;
     const outcome = sendEdit(this, (project) => recordStep(project, bar.id, event.detail.hz, options));
     this.roundError = outcome.ok ? '' : outcome.error.message;
     if (outcome.ok) {
@@ -366,14 +352,14 @@ export class BwTuningView extends LitElement {
 
   private renderAdvice() {
     const bar = this.bar!;
-    const advice = bar.advice && bar.advice.from_steps === bar.session.steps.length ? bar.advice : null;
+    const advice = adviceFor(bar, this.theory);
     const project = this.project!;
     const register = registerOf(project, bar);
     const targets = barTargetHz(project, bar);
     if (tunedByLength(bar)) return html`<bw-length-trim .project=${project} .bar=${bar}></bw-length-trim>`;
     if (bar.session.steps.length === 0) return html`<section class="panel"><h3>Next cut</h3><p class="muted">Record a round first: advice is based on what the bar sounds like.</p></section>`;
     if (bar.state === 'done' && !advice) return html`<section class="panel"><h3>Next cut</h3><p class="advice-status in-tune">● This bar is marked done.</p></section>`;
-    if (this.cutSinceLastRound(bar)) {
+    if (cutSinceLastRound(bar)) {
       const expected = bar.expected_hz ? comparePartials(bar.expected_hz, targets, register.tolerance_cents) : null;
       return html`<section class="panel" aria-labelledby="advice-heading">
         <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
@@ -394,9 +380,9 @@ export class BwTuningView extends LitElement {
       return html`<section class="panel" aria-labelledby="advice-heading">
         <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
         ${working.running
-          ? html`<div class="row" role="status"><progress aria-label="Working out the next cut"></progress> Working out the next cut… <button @click=${() => this.advice.cancel(bar.id)}>Cancel</button></div>`
+          ? html`<div class="row" role="status" data-testid="advice-working"><progress aria-label="Working out the next cut"></progress> ${this.theory === 'solid' ? 'Working out the next cut on the 3D model (a few seconds)…' : 'Working out the next cut…'} <button @click=${() => this.advice.cancel(bar.id)} data-testid="advice-cancel">Cancel</button></div>`
           : problem
-            ? html`<p class=${problem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${this.problemText(problem)}</p>
+            ? html`<p class=${problem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${adviceProblemText(problem)}</p>
                 <p class="muted">You can still record rounds, and enter a cut you made by hand in the <button @click=${() => this.dispatchEvent(new NavigateEvent('shape', bar.id))}>Shape view</button>.</p>
                 ${problem.status !== 'unavailable' ? html`<button @click=${() => this.requestAdvice(bar)}>Try again</button>` : nothing}`
             : nothing}
@@ -413,6 +399,7 @@ export class BwTuningView extends LitElement {
             <button class="primary" @click=${() => this.markDone()}>Mark the bar done</button>`
         : html`<bw-cut-advice .project=${project} .bar=${bar} .advice=${advice} .nodesMm=${this.predicted?.analysis.bending[0]?.nodes_mm ?? []}
             @cut-made=${(event: CustomEvent<CutMadeDetail>) => this.markDone(event.detail.percent < 100 ? { percent: event.detail.percent } : {})}></bw-cut-advice>`}
+      ${advice.theory === 'solid' ? html`<bw-solid-advice-summary .report=${advice.solid ?? null}></bw-solid-advice-summary>` : nothing}
       ${calibrated
         ? html`<details>
             <summary>What the rounds taught about this blank</summary>
@@ -426,22 +413,7 @@ export class BwTuningView extends LitElement {
 
   private renderLimit() {
     const bar = this.bar!;
-    return html`<div class="limit"><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field><bw-shortening-switch .bar=${bar}></bw-shortening-switch></div>`;
-  }
-
-  private problemText(problem: TaskProblem): string {
-    switch (problem.status) {
-      case 'stale':
-        return 'The rounds changed while the advice was worked out; it was not kept.';
-      case 'input-error':
-        return `${problem.field}: ${problem.rule}`;
-      case 'unavailable':
-        return `${problem.what} is not available yet.`;
-      case 'failed':
-        return `The advice could not be worked out: ${problem.message}`;
-      case 'cancelled':
-        return 'Cancelled.';
-    }
+    return html`<div class="limit"><bw-advice-theory theory=${this.theory} @advice-theory-change=${(event: CustomEvent<AdviceTheory>) => (this.theory = event.detail)}></bw-advice-theory><bw-number-field label="Thinnest allowed" unit="mm" name="min-thickness" .value=${bar.session.limits.min_thickness_mm} .min=${0} exclusive-min hint="Advice never cuts below this." @value-commit=${(event: CustomEvent<ValueCommitDetail>) => this.setLimit(event.detail.value)}></bw-number-field><bw-shortening-switch .bar=${bar}></bw-shortening-switch></div>`;
   }
 
   private renderHistory() {
@@ -473,9 +445,9 @@ export class BwTuningView extends LitElement {
             </div>
             <bw-partial-entry .count=${register.ratios.length} .targets=${targets} .ranges=${readingRangesHz(this.expectedHz().slice(0, register.ratios.length))} .filled=${this.heard} .filledFrom=${this.heardFrom} @round-submit=${this.onRound}></bw-partial-entry>
             <bw-round-conditions
-              .checkpoints=${this.cutSinceLastRound(bar) ? (bar.checkpoints ?? null) : null}
-              finished-at=${this.restingSince(bar)}
-              .airC=${this.lastAirC(bar)}
+              .checkpoints=${cutSinceLastRound(bar) ? (bar.checkpoints ?? null) : null}
+              finished-at=${restingSince(bar)}
+              .airC=${lastAirC(bar)}
               playing-c=${project.instrument.air_temperature_c}
               blank-mm=${bar.blank.section.shape === 'rect' ? bar.blank.section.thickness_mm : 0}
               @conditions-change=${(event: CustomEvent<RoundConditions>) => (this.conditions = event.detail)}

@@ -33,5 +33,5 @@ export function startSolidWorker(name: string): JobWorkerLike {
   return new Worker(new URL('./solidWorker.ts', import.meta.url), { type: 'module', name }) as unknown as JobWorkerLike;
 }
 
-/** The page's 3D-model client: a job at a time in a worker of its own, kept for the next check (a cancel terminates only it). */
-export const solidSolver = new JobClient<SolidJobs>({ name: 'barwright-solid', spawn: startSolidWorker, lanes: { solidModes: 'own' }, ownLimit: 1, spareWorkers: 1 });
+/** The page's 3D-model client (the shape view's check, the tuning view's advice on the 3D model): a job at a time in a worker of its own, kept for the next one (a cancel terminates only it). */
+export const solidSolver = new JobClient<SolidJobs>({ name: 'barwright-solid', spawn: startSolidWorker, lanes: { solidModes: 'own', nextCutSolid: 'own' }, ownLimit: 1, spareWorkers: 1 });

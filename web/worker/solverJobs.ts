@@ -5,9 +5,9 @@
 import type { JobHandlers } from './serveJobs.ts';
 import type { SolverJobs } from './solverProtocol.ts';
 import { summaryOf } from './calibrationCache.ts';
+import { nextCutPercent, withLotRecord } from './adviceLearning.ts';
 import {
   analyzeLineBar,
-  calibrateSession,
   calibratedAnalysis,
   calibratedDesign,
   calibratedMaterial,
@@ -16,19 +16,12 @@ import {
   correctedBar,
   designBar,
   lengthTrim,
-  lotRecordFromCalibration,
   nextCut,
   parseChimeSetFile,
-  parseSessionFile,
   planChimeSet,
   whereToCutMap,
   type CutEffectMap,
 } from '../../src/index.ts';
-
-/** Progress of next-cut advice in percent: calibration is the first 40 %, planning the rest. */
-function nextCutPercent(stage: string, fraction: number): number {
-  return Math.round(100 * (stage === 'calibrating' ? fraction * 0.4 : stage === 'planning' ? 0.4 + 0.6 * fraction : 1));
-}
 
 /** The solver worker's handlers. */
 export const solverHandlers: JobHandlers<SolverJobs> = {
@@ -73,10 +66,7 @@ export const solverHandlers: JobHandlers<SolverJobs> = {
 
   /** The next cut of a session; progress in percent. When done (and `learn` given), with what the bar teaches its lot. */
   nextCut(payload, job) {
-    const result = nextCut(payload.session, { source: 'session', lot: payload.lot ?? null, onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
-    if (result.status !== 'done' || !payload.learn) return result;
-    const log = parseSessionFile(payload.session, 'session');
-    return { ...result, lot_record: lotRecordFromCalibration(calibrateSession(log, { lot: payload.lot ?? null }), payload.learn.bar, new Date().toISOString(), payload.learn.note) };
+    return withLotRecord(nextCut(payload.session, { source: 'session', lot: payload.lot ?? null, onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) }), payload);
   },
 
   /** Resonator tubes for a set of fundamentals. */

@@ -1,6 +1,6 @@
 // The solver worker's jobs (solverWorker.ts), in the workbench's one job protocol
 // (jobProtocol.ts): for each kind, the payload the page sends and the result it gets back.
-import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LengthTrim, LengthTrimInput, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile, Workshop } from '../../src/index.ts';
+import type { BarAnalysis, BarFile, CalibrationSummary, ChimeSetPlan, CutEffectMap, DesignResult, LengthTrim, LengthTrimInput, LotBarRecord, LotPrior, NextCutResult, ResonatorResult, SessionFile, SolidSessionReport, Workshop } from '../../src/index.ts';
 
 /** Analyse one bar: its modes, optionally shapes and the where-to-cut map. */
 export interface AnalyzePayload {
@@ -63,6 +63,9 @@ export interface NextCutPayload {
 /** Next-cut advice; when done, with what the finished bar teaches its lot (`learn` given). */
 export type NextCutAdvice = NextCutResult & { lot_record?: LotBarRecord };
 
+/** Next-cut advice worked out on the 3D model too (nextCutSolid): what the solid model said, null when it was not consulted. */
+export type SolidNextCutAdvice = NextCutAdvice & { theory: 'solid'; solid: SolidSessionReport | null };
+
 /** Resonator tube lengths for a set of fundamentals at a temperature. */
 export interface ResonatorPayload {
   rows: { id: string; hz: number; innerDiameterMm: number }[];
@@ -105,4 +108,6 @@ export type SolverJobs = {
 /** The 3D model's job catalog: its own worker module, so the solver worker never loads the solid model. */
 export type SolidJobs = {
   solidModes: { payload: SolidModesPayload; result: SolidModesResult };
+  /** The next cut with the solid model in the calibration and the plan (a few seconds: 3–8 solid analyses). */
+  nextCutSolid: { payload: NextCutPayload; result: SolidNextCutAdvice };
 };
