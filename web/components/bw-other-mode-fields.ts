@@ -125,6 +125,8 @@ export class BwOtherModeFields extends LitElement {
               const texts = [...this.texts];
               texts[index] = (event.target as HTMLInputElement).value;
               this.texts = texts;
+              // A refusal shown goes as soon as the reading is acceptable (not on leaving the field, which would move what is below under the pointer).
+              if (this.errors[index] && !this.refusal(index)) this.errors = this.errors.map((message, at) => (at === index ? '' : message));
             }}
             @keydown=${(event: KeyboardEvent) => this.onKey(event, index)}
             @blur=${() => this.onBlur(index)}

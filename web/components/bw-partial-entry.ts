@@ -135,7 +135,8 @@ export class BwPartialEntry extends LitElement {
 
   private submit(): void {
     const values = this.check();
-    const others = this.otherModes?.readings() ?? {};
+    const fields = this.otherModes;
+    const others = fields ? fields.readings() : {};
     if (!values || !others) return;
     this.dispatchEvent(new CustomEvent<RoundSubmitDetail>('round-submit', { detail: { hz: values, source: this.source, ...others }, bubbles: true, composed: true }));
     this.texts = [];
