@@ -14,8 +14,10 @@ const before: Record<string, number> = { main: 749_351, keyboardTaskWorker: 334_
 /** All JavaScript of that build: the four above, the listening view (18 034), the demo project (14 200) and the audio worklet (504). */
 const beforeAllScripts = 1_672_004;
 
-/** The workers the page starts (web/worker/*, web/audio/partialWorker.ts). */
+/** The workers the page starts (web/worker/*, web/audio/partialWorker.ts) that have a record from before issue 14. */
 const workerNames = ['solverWorker', 'keyboardTaskWorker', 'partialWorker'] as const;
+/** Workers added since (no record before): the 3D model's (the shape view's check, the tuning view's advice on the 3D model). */
+const newWorkerNames = ['solidWorker'] as const;
 
 interface ManifestChunk {
   file: string;
@@ -81,7 +83,12 @@ export const bundlesSuite: BenchSuite = {
         if (!file) throw new Error(`no ${name} bundle in the build`);
         return { name, file };
       });
-      const workerFiles = new Set(workers.map((worker) => worker.file));
+      const newWorkers = newWorkerNames.map((name) => {
+        const file = scripts.find((candidate) => candidate.startsWith(`assets/${name}-`));
+        if (!file) throw new Error(`no ${name} bundle in the build`);
+        return { name, file };
+      });
+      const workerFiles = new Set([...workers, ...newWorkers].map((worker) => worker.file));
       const onDemand = scripts.filter((file) => !initial.has(file) && !workerFiles.has(file) && !/captureProcessor-/.test(file));
       const totalBytes = scripts.reduce((sum, file) => sum + size(file), 0);
 
@@ -90,6 +97,7 @@ export const bundlesSuite: BenchSuite = {
         row(`main bundle (${entry.file})`, size(entry.file), againstBefore(size(entry.file), 'main')),
         row('page start: main bundle + its static imports', initialBytes, { files: initial.size, ...againstBefore(initialBytes, 'main') }),
         ...workers.map((worker) => row(`worker ${worker.name}`, size(worker.file), againstBefore(size(worker.file), worker.name))),
+        ...newWorkers.map((worker) => row(`worker ${worker.name}`, size(worker.file))),
         row('views and libraries loaded on demand (all together)', onDemand.reduce((sum, file) => sum + size(file), 0), { files: onDemand.length, largest_bytes: Math.max(...onDemand.map(size)) }),
         row('all JavaScript of the build', totalBytes, { files: scripts.length, before_bytes: beforeAllScripts, ratio_to_before: totalBytes / beforeAllScripts }),
         row('service worker (sw.js)', size('sw.js')),
