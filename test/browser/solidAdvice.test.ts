@@ -2,8 +2,9 @@
 // mode (a twisting mode at or below the fundamental refused at its field by the session file's
 // rule), the 3D advice switched on and worked out in the page's 3D-model worker, its summary naming
 // the fitted wood and the grain as the library says in Node, and after a reload the choice, the
-// advice and the stored twisting mode still there. Screenshots at 1280 × 800 and 768 × 1024.
-import { writeFileSync } from 'node:fs';
+// advice and the stored twisting mode still there, and in the exported project file. Screenshots at
+// 1280 × 800 and 768 × 1024.
+import { readFileSync, writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import type { ViteDevServer } from 'vite';
@@ -125,6 +126,14 @@ describe('advice on the 3D model in the tuning view', () => {
       expect(await noSidewaysScroll(page)).toBe(true);
       await page.screenshot({ path: artifactPath(`solid-advice-${viewport.width}x${viewport.height}.png`), fullPage: true });
     }
+    // The exported project file carries the twisting mode on the round and the advice's model.
+    await page.locator('[data-testid="project-menu"]').click();
+    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('[data-testid="export"]').click()]);
+    const exported = artifactPath('solid-advice.project.json');
+    await download.saveAs(exported);
+    const exportedBar = (JSON.parse(readFileSync(exported, 'utf8')) as ProjectFile).bars.find((entry) => entry.id === 'bar-A2')!;
+    expect(exportedBar.session.steps.at(-1)!.measured_torsion_hz).toBe(twistingHz);
+    expect(exportedBar.advice?.theory).toBe('solid');
     writeFileSync(artifactPath('solid-advice-timing.json'), `${JSON.stringify({ seconds_from_switch_to_summary: seconds }, null, 2)}\n`);
     console.log(`3D advice for the demo's A2 with a twisting mode, measured in the page: ${seconds.toFixed(1)} s`);
     await context.close();
