@@ -1,5 +1,5 @@
 // The model the tuning view's next-cut advice is worked out on: the line model (quick) or the 3D
-// model as well (a few seconds a round). The maker's choice, remembered in this browser.
+// model as well (about 20 seconds a round). The maker's choice, remembered in this browser.
 
 /** 'line': nextCut; 'solid': nextCutSolid (the 3D model fits the wood and, closing in, plans the cut). */
 export type AdviceTheory = 'line' | 'solid';

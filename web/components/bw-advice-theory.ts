@@ -38,7 +38,7 @@ export class BwAdviceTheory extends LitElement {
   }
 
   protected override render() {
-    return html`<label title="The 3D model of the bar fits the wood to your readings and, once every partial is within 50 cents, plans each cut as the 3D bar moves: closer to the real bar on a deep arch, a few seconds a round instead of a moment.">
+    return html`<label title="The 3D model of the bar fits the wood to your readings and, once every partial is within 50 cents, plans each cut as the 3D bar moves: closer to the real bar on a deep arch, about 20 seconds a round instead of a moment (a minute or more when a twisting mode puts the grain at an angle).">
       <input type="checkbox" name="advice-theory" data-testid="advice-solid" .checked=${this.theory === 'solid'} @change=${this.toggle} />
       Advise on the 3D model (slower)
     </label>`;

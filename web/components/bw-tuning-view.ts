@@ -380,7 +380,7 @@ export class BwTuningView extends LitElement {
       return html`<section class="panel" aria-labelledby="advice-heading">
         <div class="heading-row"><h3 id="advice-heading">Next cut</h3>${this.renderLimit()}</div>
         ${working.running
-          ? html`<div class="row" role="status" data-testid="advice-working"><progress aria-label="Working out the next cut"></progress> ${this.theory === 'solid' ? 'Working out the next cut on the 3D model (a few seconds)…' : 'Working out the next cut…'} <button @click=${() => this.advice.cancel(bar.id)} data-testid="advice-cancel">Cancel</button></div>`
+          ? html`<div class="row" role="status" data-testid="advice-working"><progress aria-label="Working out the next cut"></progress> ${this.theory === 'solid' ? 'Working out the next cut on the 3D model (about 20 seconds; a minute or more when the grain is fitted at an angle)…' : 'Working out the next cut…'} <button @click=${() => this.advice.cancel(bar.id)} data-testid="advice-cancel">Cancel</button></div>`
           : problem
             ? html`<p class=${problem.status === 'unavailable' ? 'unavailable' : 'problem'} role="status">${adviceProblemText(problem)}</p>
                 <p class="muted">You can still record rounds, and enter a cut you made by hand in the <button @click=${() => this.dispatchEvent(new NavigateEvent('shape', bar.id))}>Shape view</button>.</p>

@@ -17,7 +17,7 @@ export const solidHandlers: JobHandlers<SolidJobs> = {
     return { analysis: analyzeBar(bar, { theory: 'solid', modes: payload.modes, shapes: true }), calibration };
   },
 
-  /** The next cut on the solid model (nextCutSolid, a few seconds; a worker per job, so a cancel stops only it). When done (and `learn` given), with what the bar teaches its lot. */
+  /** The next cut on the solid model (nextCutSolid, about 20 s on the demo bars, more with an off-axis grain; a worker per job, so a cancel stops only it). When done (and `learn` given), with what the bar teaches its lot. */
   nextCutSolid(payload, job) {
     const result = nextCutSolid(payload.session, { source: 'session', lot: payload.lot ?? null, onProgress: (stage, fraction) => job.progress(nextCutPercent(stage, fraction), 100) });
     return { ...withLotRecord(result, payload), theory: 'solid' as const };

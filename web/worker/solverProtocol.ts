@@ -108,6 +108,6 @@ export type SolverJobs = {
 /** The 3D model's job catalog: its own worker module, so the solver worker never loads the solid model. */
 export type SolidJobs = {
   solidModes: { payload: SolidModesPayload; result: SolidModesResult };
-  /** The next cut with the solid model in the calibration and the plan (a few seconds: 3–8 solid analyses). */
+  /** The next cut with the solid model in the calibration and the plan (3–10 solid analyses: about 20 s on the demo bars, more with an off-axis grain). */
   nextCutSolid: { payload: NextCutPayload; result: SolidNextCutAdvice };
 };
