@@ -2,32 +2,19 @@
 // even when the maker has moved to another bar; cancelling one worker job leaves every other job
 // running to its end; a measured frequency reaches storage exactly as it was read (full
 // precision), whether typed or heard. Results are read back from the page's IndexedDB.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { encodeWav } from '../../src/audio/encodeWav.ts';
 import { synthesizeStrike } from '../audio/syntheticStrike.ts';
-import { freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-const freshPage = () => openFreshPage(browser, problems, { width: 1280, height: 900 });
+const freshPage = () => workbench.freshPage({ width: 1280, height: 900 });
 
 async function openView(page: Page, hash: string): Promise<void> {
-  await page.goto(`${baseUrl}#/${hash}`);
+  await page.goto(`${workbench.url}#/${hash}`);
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 30_000 });
 }
 

@@ -3,35 +3,22 @@
 // tune, the piece done); the chime set lives in the project (a note added survives a reload and is
 // in the exported file) and its lengths are the project's chime pieces' lengths.
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { noteToHz } from '../../src/index.ts';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-const freshPage = () => openFreshPage(browser, problems);
+const freshPage = () => workbench.freshPage();
 
 async function saved(page: Page): Promise<void> {
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 60_000 });
 }
 
 async function openView(page: Page, hash: string): Promise<void> {
-  await page.goto(`${baseUrl}#/${hash}`);
+  await page.goto(`${workbench.url}#/${hash}`);
   await saved(page);
 }
 

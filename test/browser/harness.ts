@@ -7,6 +7,7 @@ import { tmpdir } from 'node:os';
 import { extname, join, resolve, sep } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type LaunchOptions, type Page } from 'playwright-core';
 import { build, createServer, type InlineConfig, type ViteDevServer } from 'vite';
+import { afterAll, beforeAll } from 'vitest';
 
 /** Where browser tests save screenshots and other artefacts (git-ignored). */
 export const artifactDir = resolve(import.meta.dirname, '../artifacts');
@@ -149,6 +150,44 @@ export async function freshPage(browser: Browser, problems: string[], viewport =
   const page = await context.newPage();
   watchPage(page, problems);
   return { context, page };
+}
+
+/** A test file's workbench: its dev server's address, its pages' console errors, and fresh pages. */
+export interface Workbench {
+  /** The dev server's address (set before the file's first test). */
+  url: string;
+  /** Page errors and console errors of every page opened through `freshPage`. */
+  readonly problems: string[];
+  /** A fresh browser profile (its own IndexedDB, downloads allowed) with a watched page, 1280 × 800 unless given. */
+  freshPage(viewport?: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page }>;
+}
+
+/**
+ * Serves the workbench and starts Chromium for the calling test file (beforeAll) and closes both
+ * after its tests (afterAll). Call it at the top level of the file.
+ */
+export function useWorkbench(): Workbench {
+  let server: ViteDevServer | undefined;
+  let browser: Browser | undefined;
+  const workbench: Workbench = {
+    url: '',
+    problems: [],
+    freshPage(viewport) {
+      if (!browser) throw new Error('the workbench starts before the first test (useWorkbench at the top level of the file)');
+      return freshPage(browser, workbench.problems, viewport);
+    },
+  };
+  beforeAll(async () => {
+    const started = await startWorkbench();
+    server = started.server;
+    workbench.url = started.url;
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+  });
+  return workbench;
 }
 
 /**

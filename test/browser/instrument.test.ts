@@ -5,35 +5,22 @@
 // pages and scale bars measured; the chime set page checked against the library's
 // chimeForNote run here in Node for the same stock and note.
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { chimeForNote, keyboardCutListColumns, noteToHz, templatePages } from '../../src/index.ts';
-import { artifactPath, auditControls as auditPageControls, freshPage as openFreshPage, launchBrowser, parseCsv, startWorkbench } from './harness.ts';
+import { artifactPath, auditControls as auditPageControls, parseCsv, useWorkbench } from './harness.ts';
 import { readPdfPages, scaleBarLengthsMm } from './pdfPages.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 /** CSS px per mm at the CSS reference of 96 px per inch. */
 const pxPerMm = 96 / 25.4;
 
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-const freshPage = (viewport = { width: 1280, height: 900 }) => openFreshPage(browser, problems, viewport);
+const freshPage = (viewport = { width: 1280, height: 900 }) => workbench.freshPage(viewport);
 
 async function openView(page: Page, hash: string): Promise<void> {
-  await page.goto(`${baseUrl}#/${hash}`);
+  await page.goto(`${workbench.url}#/${hash}`);
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 30_000 });
 }
 

@@ -8,34 +8,21 @@
 // saves a screenshot of each view at both sizes into test/artifacts/ (keyboard, its plan panel,
 // shape, tuning, listening, resonators, template, chimes, workshop, the plan's templates, project menu).
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { closedTubeResonator, noteToHz } from '../../src/index.ts';
-import { artifactPath, auditControls, freshPage as openFreshPage, launchBrowser, parseCsv, startWorkbench } from './harness.ts';
+import { artifactPath, auditControls, parseCsv, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
-
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 const laptop = { width: 1280, height: 800 };
 const tablet = { width: 768, height: 1024 };
-const freshPage = (viewport = laptop) => openFreshPage(browser, problems, viewport);
+const freshPage = (viewport = laptop) => workbench.freshPage(viewport);
 
 /** Opens a view and waits for the app to have a project open and saved. */
 async function openView(page: Page, hash: string): Promise<void> {
-  await page.goto(`${baseUrl}#/${hash}`);
+  await page.goto(`${workbench.url}#/${hash}`);
   await saved(page);
 }
 

@@ -6,38 +6,25 @@
 // Thickness figures under the bar must not run into each other, and the paper chosen is
 // remembered through a reload.
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { cutInstructions, parseBarFile, parseProjectFile, templatePages, templatePapers, type BarFile, type TemplatePaper } from '../../src/index.ts';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, useWorkbench } from './harness.ts';
 import { readPdfPages, scaleBarLengthsMm } from './pdfPages.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 /** CSS px per mm at the CSS reference of 96 px per inch. */
 const pxPerMm = 96 / 25.4;
 /** Tolerance on a printed length: half a millimetre, what a maker can see on a steel rule. */
 const ruleToleranceMm = 0.5;
 
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
 const demo = parseProjectFile(JSON.parse(readFileSync('fixtures/demo.project.json', 'utf8')), 'demo.project.json');
 const demoBar = (id: string) => demo.bars.find((bar) => bar.id === id)!;
 
 async function openTemplate(page: Page, barId: string): Promise<void> {
-  await page.goto(`${baseUrl}#/template/${barId}`);
+  await page.goto(`${workbench.url}#/template/${barId}`);
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 60_000 });
   await page.locator('bw-bar-template [data-testid="template-tile"]').first().waitFor();
   // The cord holes come from the worker's analysis of the shape printed.
@@ -77,7 +64,7 @@ async function figureReport(page: Page) {
 describe('paper that prints right', () => {
   for (const paper of ['a4', 'letter'] as const) {
     it(`${paper}: a short bar prints on one portrait sheet, its 100 mm scale bar 100 mm long in the PDF`, async () => {
-      const { context, page } = await openFreshPage(browser, problems);
+      const { context, page } = await workbench.freshPage();
       const bar = demoBar('bar-C7');
       await openTemplate(page, bar.id);
       await choosePaper(page, paper);
@@ -102,7 +89,7 @@ describe('paper that prints right', () => {
     }, 120_000);
 
     it(`${paper}: a long bar is tiled on landscape sheets with alignment marks and the station table after it, every sheet with a 100 mm scale bar`, async () => {
-      const { context, page } = await openFreshPage(browser, problems);
+      const { context, page } = await workbench.freshPage();
       const bar = demoBar('bar-A2');
       await openTemplate(page, bar.id);
       await choosePaper(page, paper);
@@ -144,7 +131,7 @@ describe('paper that prints right', () => {
   }
 
   it('the station table goes under a short bar\'s drawing when it fits (one page), else onto pages of its own, as the paper plan says', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
+    const { context, page } = await workbench.freshPage();
     await openTemplate(page, 'bar-C7');
     // The element on its own: the C7 blank (175 × 40 × 19 mm) with an invented arch, 19 mm at the
     // ends and 13 mm in the middle (test data for the layout, not a tuned shape), stations every
@@ -182,7 +169,7 @@ describe('paper that prints right', () => {
   }, 120_000);
 
   it('remembers the paper chosen through a reload', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
+    const { context, page } = await workbench.freshPage();
     await openTemplate(page, 'bar-C4');
     expect(await page.getByLabel('Paper').inputValue()).toBe('a4');
     await choosePaper(page, 'letter');

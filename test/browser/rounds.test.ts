@@ -3,25 +3,12 @@
 // back, and part of a cut recorded as such; an absurd reading or blank size is refused at the
 // field with its range; a mistyped reading is headed as a suspect reading; checkpoints at round
 // positions from the centre.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { artifactPath, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
-
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 interface StoredStep {
   measured_hz: number[];
@@ -59,8 +46,8 @@ const adviceTimeout = { timeout: 90_000 };
 
 describe('rounds you can trust', () => {
   it('removes the last round and takes it again: the advice shows at once, and the round is stored as it was the first time', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/tuning/bar-A2`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/tuning/bar-A2`);
     await saved(page);
     const done = page.locator('[data-testid="mark-cut-done"]');
     await done.waitFor(adviceTimeout);
@@ -92,8 +79,8 @@ describe('rounds you can trust', () => {
   }, 300_000);
 
   it('takes "I made this cut" back, and records part of a cut as the part made', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/tuning/bar-A2`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/tuning/bar-A2`);
     await saved(page);
     const done = page.locator('[data-testid="mark-cut-done"]');
     await done.waitFor(adviceTimeout);
@@ -121,8 +108,8 @@ describe('rounds you can trust', () => {
   }, 300_000);
 
   it('refuses an absurd reading at the field with its range, and absurd blank sizes and moduli', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/tuning/bar-A4`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/tuning/bar-A4`);
     await saved(page);
     const rows = (await storedBar(page, 'bar-A4')).session.steps.length;
     const fundamental = page.locator('#partial-0');
@@ -155,8 +142,8 @@ describe('rounds you can trust', () => {
   }, 180_000);
 
   it('heads a mistyped reading as a suspect reading with what to check', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/tuning/bar-A2`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/tuning/bar-A2`);
     await saved(page);
     const done = page.locator('[data-testid="mark-cut-done"]');
     await done.waitFor(adviceTimeout);
@@ -176,8 +163,8 @@ describe('rounds you can trust', () => {
 
 describe('advice in workshop terms', () => {
   it('gives checkpoints every 10 mm from the centre, each with the depth to take', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/tuning/bar-A2`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/tuning/bar-A2`);
     await saved(page);
     await page.locator('[data-testid="mark-cut-done"]').waitFor(adviceTimeout);
     await page.locator('select[name="checkpoint-step"]').selectOption('10');

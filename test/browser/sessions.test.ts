@@ -4,27 +4,14 @@
 // re-strike governing; caliper checkpoints with each cut and readings entered at them; and one
 // truth: the shape view predicts a measured bar from its calibrated model, as the tuning view does.
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { artifactPath, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
-const freshPage = () => openFreshPage(browser, problems);
+const freshPage = () => workbench.freshPage();
 
 /** Cents from `reference` to `hz` (closed form, 1200·log2). */
 const centsOf = (hz: number, reference: number): number => 1200 * Math.log2(hz / reference);
@@ -34,7 +21,7 @@ const woodCentsPerC = -2;
 
 /** Opens a view and waits for the app to have a project open and saved. */
 async function openView(page: Page, hash: string): Promise<void> {
-  await page.goto(`${baseUrl}#/${hash}`);
+  await page.goto(`${workbench.url}#/${hash}`);
   await saved(page);
 }
 

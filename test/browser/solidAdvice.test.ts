@@ -5,26 +5,13 @@
 // advice and the stored twisting mode still there, and in the exported project file. Screenshots at
 // 1280 × 800 and 768 × 1024.
 import { readFileSync, writeFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { barLotPrior, barSession, nextCutSolid, parseProjectFile, type ProjectFile } from '../../src/index.ts';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
-
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 async function saved(page: Page): Promise<void> {
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 30_000 });
@@ -50,8 +37,8 @@ const twistingHz = 231;
 
 describe('advice on the 3D model in the tuning view', () => {
   it('takes a round with its twisting mode, advises on the 3D model naming the wood and the grain as the library does, and keeps all of it through a reload', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/tuning/bar-A2`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/tuning/bar-A2`);
     await saved(page);
     // The line model's advice for the demo's rounds first (the switch starts off on a new device).
     await page.locator('[data-testid="mark-cut-done"]').waitFor({ timeout: 90_000 });

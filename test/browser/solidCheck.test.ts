@@ -3,26 +3,13 @@
 // library run in Node; a mode's nodal lines and shape are shown; cancel stops the job; a measured
 // bar is solved with its calibrated material.
 import { readFileSync, writeFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { analyzeBar, parseBarFile } from '../../src/index.ts';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
-
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 /** The deep-arch bar of test/solid/deepArchBar.ts (380 × 55 × 22 mm, arch to 8 mm, full orthotropic set). */
 const deepArch = {
@@ -62,8 +49,8 @@ describe('the 3D check in the shape view', () => {
       { width: 1280, height: 800 },
       { width: 768, height: 1024 },
     ]) {
-      const { context, page } = await openFreshPage(browser, problems, viewport);
-      await page.goto(`${baseUrl}#/keyboard`);
+      const { context, page } = await workbench.freshPage(viewport);
+      await page.goto(`${workbench.url}#/keyboard`);
       await saved(page);
       await page.locator('#import-file').setInputFiles(deepArchProject());
       await expect.poll(() => page.locator('bw-project-menu .name').innerText(), { timeout: 30_000 }).toBe('Deep-arch practice');
@@ -73,7 +60,7 @@ describe('the 3D check in the shape view', () => {
       await expect
         .poll(
           async () => {
-            if (!page.url().endsWith('#/shape/bar-A4')) await page.goto(`${baseUrl}#/shape/bar-A4`);
+            if (!page.url().endsWith('#/shape/bar-A4')) await page.goto(`${workbench.url}#/shape/bar-A4`);
             return run.count();
           },
           { timeout: 150_000, interval: 2_000 },
@@ -84,7 +71,7 @@ describe('the 3D check in the shape view', () => {
       await expect
         .poll(
           async () => {
-            if (!page.url().endsWith('#/shape/bar-A4')) await page.goto(`${baseUrl}#/shape/bar-A4`);
+            if (!page.url().endsWith('#/shape/bar-A4')) await page.goto(`${workbench.url}#/shape/bar-A4`);
             if ((await run.count()) !== 1) return 'waiting';
             try {
               await run.click({ timeout: 5_000 });
@@ -133,8 +120,8 @@ describe('the 3D check in the shape view', () => {
   }, 300_000);
 
   it('cancel stops the 3D job and says so; on a bar with rounds the 3D model takes the calibrated material', async () => {
-    const { context, page } = await openFreshPage(browser, problems);
-    await page.goto(`${baseUrl}#/shape/bar-A2`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/shape/bar-A2`);
     await saved(page);
     await page.locator('[data-testid="solid-run"]').waitFor({ timeout: 90_000 });
     await page.locator('[data-testid="solid-run"]').click();

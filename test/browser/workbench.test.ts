@@ -5,36 +5,23 @@
 // drag-to-partials time. (Every view at tablet and laptop size, with screenshots, is checked in
 // ownWorkshop.test.ts.)
 import { readFileSync, writeFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
-import { artifactPath, freshPage as openFreshPage, launchBrowser, startWorkbench, watchPage } from './harness.ts';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { artifactPath, watchPage, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 /** CSS px per mm at the CSS reference of 96 px per inch. */
 const pxPerMm = 96 / 25.4;
 
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
-
 /** A fresh browser profile (its own IndexedDB) with a page that records console errors. */
-const freshPage = (viewport?: { width: number; height: number }) => openFreshPage(browser, problems, viewport);
+const freshPage = (viewport?: { width: number; height: number }) => workbench.freshPage(viewport);
 const watch = (page: Page) => watchPage(page, problems);
 
 /** Opens a view and waits for the app to have a project open and saved. */
 async function openView(page: Page, hash: string): Promise<void> {
-  await page.goto(`${baseUrl}#/${hash}`);
+  await page.goto(`${workbench.url}#/${hash}`);
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 30_000 });
 }
 

@@ -4,26 +4,13 @@
 // the CLI's parser reads; the last finishing tool cannot be removed; the plan says which
 // workshop it plans for; nothing scrolls sideways at laptop or tablet size.
 import { readFileSync } from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import type { ViteDevServer } from 'vite';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { parseProjectFile, parseWorkshopFile } from '../../src/index.ts';
-import { artifactPath, auditControls, freshPage, launchBrowser, startWorkbench } from './harness.ts';
+import { artifactPath, auditControls, useWorkbench } from './harness.ts';
 
-let server: ViteDevServer;
-let baseUrl: string;
-let browser: Browser;
-const problems: string[] = [];
-
-beforeAll(async () => {
-  ({ server, url: baseUrl } = await startWorkbench());
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const workbench = useWorkbench();
+const problems = workbench.problems;
 
 async function saved(page: Page): Promise<void> {
   await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor({ timeout: 30_000 });
@@ -36,8 +23,8 @@ function radiusLimit(page: Page) {
 
 describe('the workshop view', () => {
   it('sets the project’s tools, refuses absurd sizes at the field, keeps them through reload and export, and shows at both sizes', async () => {
-    const { context, page } = await freshPage(browser, problems);
-    await page.goto(`${baseUrl}#/workshop`);
+    const { context, page } = await workbench.freshPage();
+    await page.goto(`${workbench.url}#/workshop`);
     await saved(page);
     await page.locator('bw-workshop-view').waitFor({ timeout: 60_000 });
 
@@ -89,11 +76,11 @@ describe('the workshop view', () => {
     expect(await page.locator('[data-testid="workshop-tool"]').count()).toBe(2);
 
     // The keyboard's plan names the workshop it plans for.
-    await page.goto(`${baseUrl}#/keyboard`);
+    await page.goto(`${workbench.url}#/keyboard`);
     await expect.poll(() => page.locator('[data-testid="plan-workshop"]').innerText(), { timeout: 30_000 }).toMatch(/small shop/);
 
     // Back to the default shop.
-    await page.goto(`${baseUrl}#/workshop`);
+    await page.goto(`${workbench.url}#/workshop`);
     await page.locator('[data-testid="workshop-reset"]').click();
     await expect.poll(() => page.locator('[data-testid="workshop-origin"]').innerText()).toMatch(/default/);
     await expect.poll(() => radiusLimit(page).innerText()).toMatch(/12\.5 mm/);
@@ -106,8 +93,8 @@ describe('the workshop view', () => {
       { width: 1280, height: 800 },
       { width: 768, height: 1024 },
     ]) {
-      const sized = await freshPage(browser, problems, viewport);
-      await sized.page.goto(`${baseUrl}#/workshop`);
+      const sized = await workbench.freshPage(viewport);
+      await sized.page.goto(`${workbench.url}#/workshop`);
       await sized.page.locator('[data-testid="workshop-limits"]').waitFor({ timeout: 60_000 });
       const sideways = await sized.page.evaluate(() => document.scrollingElement!.scrollWidth - document.scrollingElement!.clientWidth);
       expect(sideways).toBeLessThanOrEqual(0);
