@@ -6,7 +6,6 @@ import { describe, expect, it } from 'vitest';
 import {
   chimeLengthMm,
   projectChimeSet,
-  InputError,
   addBar,
   addBarsFromPlan,
   addBarsInRange,
@@ -30,21 +29,13 @@ import {
   type KeyboardPlan,
   type ProjectFile,
 } from '../../src/index.ts';
+import { thrown } from './thrownInputError.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
 const at = '2025-04-01T10:00:00.000Z';
 const notes = (project: ProjectFile) => project.bars.map((bar) => bar.note);
 
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    if (error instanceof InputError) return error;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
 
 /** The project survives the file format unchanged (the schema accepts every edit's result). */
 function roundTrips(project: ProjectFile): void {

@@ -3,7 +3,8 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { markCutDone, parseProjectFile, setBarBlank, partOfCut, recordStep, removeLastStep, serializeProjectFile, setAdvice, thicknessAtMm, undoMarkedCut, withStationThickness, type InputError, type ProjectFile } from '../../src/index.ts';
+import { markCutDone, parseProjectFile, setBarBlank, partOfCut, recordStep, removeLastStep, serializeProjectFile, setAdvice, thicknessAtMm, undoMarkedCut, withStationThickness, type ProjectFile } from '../../src/index.ts';
+import { thrown } from './thrownInputError.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
@@ -11,14 +12,6 @@ const at = '2025-04-01T10:00:00.000Z';
 const later = '2025-04-01T10:20:00.000Z';
 const bar = (project: ProjectFile, id: string) => project.bars.find((entry) => entry.id === id)!;
 
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    return error as InputError;
-  }
-  throw new Error('expected an InputError');
-}
 
 /** The demo's A2 with an advised cut of 0.6 mm at station 12, and the shape that cut leaves. */
 function advised() {

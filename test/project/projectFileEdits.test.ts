@@ -5,7 +5,6 @@ import { resolve } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
-  InputError,
   assertNoMaterialAdded,
   barTargetHz,
   comparePartials,
@@ -28,21 +27,13 @@ import {
   type BarFile,
   type ProjectFile,
 } from '../../src/index.ts';
+import { thrown } from './thrownInputError.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
 const at = '2025-04-01T10:00:00.000Z';
 const bar = (project: ProjectFile, id: string) => project.bars.find((entry) => entry.id === id)!;
 
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    if (error instanceof InputError) return error;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
 
 describe('project edits', () => {
   it('records a round against the bar as it is now, without changing the input project', () => {

@@ -6,7 +6,6 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
-  InputError,
   barCalibrationInputs,
   barLotPrior,
   barTemperature,
@@ -25,20 +24,12 @@ import {
   type LotBarRecord,
   type ProjectFile,
 } from '../../src/index.ts';
+import { thrown } from './thrownInputError.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
 const bar = (project: ProjectFile, id: string) => project.bars.find((entry) => entry.id === id)!;
 
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    if (error instanceof InputError) return error;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
 
 /** The message a project file is refused with on load. */
 function refusal(value: unknown): string {

@@ -4,7 +4,6 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
-  InputError,
   addBar,
   checkProjectName,
   duplicateProject,
@@ -19,20 +18,12 @@ import {
   uniqueProjectName,
   type ProjectFile,
 } from '../../src/index.ts';
+import { thrown } from './thrownInputError.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
 const at = '2025-04-01T10:00:00.000Z';
 
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    if (error instanceof InputError) return error;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
 
 describe('an empty project', () => {
   it('of each kind is a valid project file with one register of the kind’s ratios and no bars', () => {

@@ -6,7 +6,6 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import {
-  InputError,
   checkProjectFile,
   defaultWorkshop,
   designBar,
@@ -24,6 +23,7 @@ import {
   type ProjectFile,
   type Workshop,
 } from '../../src/index.ts';
+import { thrown } from './thrownInputError.ts';
 
 const demoText = readFileSync(resolve(import.meta.dirname, '../../fixtures/demo.project.json'), 'utf8');
 const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
@@ -31,15 +31,6 @@ const demo = (): ProjectFile => parseProjectFile(JSON.parse(demoText), 'demo');
 /** An invented shop: a 40 mm drum only (walls up to 1) and 8 mm cord holes. */
 const bigDrumShop: Workshop = { name: 'big drum shop', tools: [{ kind: 'drum', radius_mm: 40 }], cord_holes: { diameter_mm: 8, clearance_mm: 4 } };
 
-function thrown(action: () => unknown): InputError {
-  try {
-    action();
-  } catch (error) {
-    if (error instanceof InputError) return error;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
 
 describe('the project workshop section', () => {
   it('is barwright’s default workshop when the file has none, and the demo has none', () => {
