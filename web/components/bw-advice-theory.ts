@@ -1,33 +1,15 @@
 // The switch between next-cut advice on the line model and on the 3D model (slower, closer to the
 // real block of wood on a deep arch). Remembered in this browser; fires `advice-theory-change`.
-import { LitElement, html, css } from 'lit';
+import { LitElement, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import { sharedStyles } from '../styles/sharedStyles.ts';
+import { checkSwitchStyles } from '../styles/checkSwitchStyles.ts';
 import { rememberAdviceTheory, type AdviceTheory } from '../adviceTheory.ts';
 
 /** `<bw-advice-theory theory="line|solid">` */
 @customElement('bw-advice-theory')
 export class BwAdviceTheory extends LitElement {
-  static override styles = [
-    sharedStyles,
-    css`
-      :host {
-        display: block;
-      }
-      label {
-        display: inline-flex;
-        align-items: center;
-        gap: 0.5rem;
-        min-height: var(--bw-touch);
-      }
-      input {
-        width: var(--bw-touch);
-        height: var(--bw-touch);
-        margin: 0;
-        accent-color: var(--bw-action);
-      }
-    `,
-  ];
+  static override styles = [sharedStyles, checkSwitchStyles];
 
   @property() theory: AdviceTheory = 'line';
 

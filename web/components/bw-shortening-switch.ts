@@ -1,35 +1,17 @@
 // The switch that lets the next-cut advice shorten a bar (`limits.allow_shortening` of its
 // session): a flat bar can only be raised by shortening it, which costs length, so it is the
 // maker's choice. Shown beside the advice of undercut bars; tubes and rods are always shortened.
-import { LitElement, html, css, nothing } from 'lit';
+import { LitElement, html, nothing } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { setAllowShortening, type ProjectBar } from '../../src/index.ts';
 import { sharedStyles } from '../styles/sharedStyles.ts';
+import { checkSwitchStyles } from '../styles/checkSwitchStyles.ts';
 import { sendEdit } from '../events.ts';
 
 /** `<bw-shortening-switch .bar>` */
 @customElement('bw-shortening-switch')
 export class BwShorteningSwitch extends LitElement {
-  static override styles = [
-    sharedStyles,
-    css`
-      :host {
-        display: block;
-      }
-      label {
-        display: inline-flex;
-        align-items: center;
-        gap: 0.5rem;
-        min-height: var(--bw-touch);
-      }
-      input {
-        width: var(--bw-touch);
-        height: var(--bw-touch);
-        margin: 0;
-        accent-color: var(--bw-action);
-      }
-    `,
-  ];
+  static override styles = [sharedStyles, checkSwitchStyles];
 
   @property({ attribute: false }) bar: ProjectBar | null = null;
   @state() private error = '';
