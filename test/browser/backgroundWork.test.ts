@@ -58,7 +58,7 @@ async function storedBar(page: Page, id: string): Promise<StoredBar> {
 /** Picks another bar in the view's bar picker (as the maker does). */
 async function pickBar(page: Page, view: string, barId: string): Promise<void> {
   await page.locator(`${view} bw-bar-picker select`).selectOption(barId);
-  await expect.poll(() => page.evaluate(() => location.hash)).toMatch(new RegExp(`/${barId}$`));
+  await expect.poll(() => page.evaluate(() => location.hash), { timeout: 30_000 }).toMatch(new RegExp(`/${barId}$`));
 }
 
 describe('background work in Chromium', () => {
@@ -80,7 +80,7 @@ describe('background work in Chromium', () => {
     // The switch came while A4's design was still running: nothing stored yet, and E5's view says
     // where A4's plan will go.
     expect((await storedBar(page, 'bar-A4')).design ?? null).toBeNull();
-    await expect.poll(() => page.locator('[data-testid="other-plans"]').innerText()).toMatch(/Still planning A4.*kept with A4/);
+    await expect.poll(() => page.locator('[data-testid="other-plans"]').innerText(), { timeout: 30_000 }).toMatch(/Still planning A4.*kept with A4/);
 
     // Wait until a plan is stored on either bar, then see which one it is.
     const planned = async () => [(await storedBar(page, 'bar-A4')).design ?? null, (await storedBar(page, 'bar-E5')).design ?? null].filter(Boolean).length;
@@ -137,10 +137,10 @@ describe('background work in Chromium', () => {
     await page.getByRole('button', { name: 'Plan the undercut' }).click();
     await page.locator('bw-shape-view progress[aria-label="Planning progress"]').waitFor();
     await pickBar(page, 'bw-shape-view', 'bar-E5');
-    await expect.poll(() => page.locator('[data-testid="other-plans"]').innerText()).toMatch(/Still planning A4/);
+    await expect.poll(() => page.locator('[data-testid="other-plans"]').innerText(), { timeout: 30_000 }).toMatch(/Still planning A4/);
     await page.getByRole('button', { name: 'Plan the undercut' }).click();
     await page.getByRole('button', { name: 'Cancel the plan for A4' }).click();
-    await expect.poll(() => page.locator('[data-testid="other-plans"]').count()).toBe(0);
+    await expect.poll(() => page.locator('[data-testid="other-plans"]').count(), { timeout: 30_000 }).toBe(0);
 
     await expect.poll(async () => (await storedBar(page, 'bar-E5')).design ?? null, { timeout: 60_000, interval: 500 }).not.toBeNull();
     await page.locator('[data-testid="save-status"]').filter({ hasText: '✓' }).waitFor();
@@ -149,7 +149,7 @@ describe('background work in Chromium', () => {
     expect((await storedBar(page, 'bar-A4')).design ?? null).toBeNull();
     // Back on A4: its plan shows as cancelled, and a new one can be started.
     await pickBar(page, 'bw-shape-view', 'bar-A4');
-    await expect.poll(() => page.locator('bw-shape-view').getByRole('status').allInnerTexts()).toContain('Cancelled.');
+    await expect.poll(() => page.locator('bw-shape-view').getByRole('status').allInnerTexts(), { timeout: 30_000 }).toContain('Cancelled.');
     expect(await page.getByRole('button', { name: 'Plan the undercut' }).isEnabled()).toBe(true);
     await context.close();
   }, 120_000);
@@ -203,7 +203,7 @@ describe('background work in Chromium', () => {
     // clean strike): 0.2 cent at 110 Hz is 0.013 Hz.
     const heardFundamental = heard.find((hz) => Math.abs(hz - 110.037) < 0.013);
     expect(heardFundamental).toBeDefined();
-    await expect.poll(() => fundamental.inputValue()).not.toBe('');
+    await expect.poll(() => fundamental.inputValue(), { timeout: 30_000 }).not.toBe('');
     await page.locator('[data-testid="record-round"]').click();
     await expect.poll(async () => (await storedBar(page, 'bar-A2')).session.steps.length, { timeout: 30_000 }).toBe(stepsBefore + 2);
     const step = (await storedBar(page, 'bar-A2')).session.steps.at(-1)!;
